@@ -1,0 +1,18 @@
+import { and, eq } from 'drizzle-orm'
+import { idParam } from '#shared/schemas/common'
+import { circuitDeleteInput } from '#shared/schemas/circuitRecord'
+
+// Delete a circuit. The caller must type its title: a drawing is hours of work.
+export default defineEventHandler(async (event) => {
+  const { workshopId } = await requireMember(event, 'circuit:write')
+  const { id } = await paramsOf(event, idParam)
+  const input = await bodyOf(event, circuitDeleteInput)
+  await useDb().transaction(async (tx) => {
+    const circuit = await findCircuit(tx, workshopId, id)
+    if (input.confirmTitle.trim() !== circuit.title) {
+      invalidInput([{ path: 'confirmTitle', message: `Type “${circuit.title}” exactly to delete this circuit` }])
+    }
+    await tx.delete(schema.circuits).where(and(eq(schema.circuits.id, id), eq(schema.circuits.workshopId, workshopId)))
+  })
+  return { ok: true }
+})

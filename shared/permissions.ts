@@ -1,0 +1,32 @@
+// Who may do what. The server enforces this table through requireMember(); the client only uses
+// it to hide buttons a user could not use anyway.
+import type { Role } from './schemas/membership'
+
+export const capabilities = {
+  'workshop:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'members:manage': ['owner'],
+  'project:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'project:write': ['owner', 'fabricator'],
+  'circuit:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'circuit:write': ['owner', 'fabricator'],
+} as const satisfies Record<string, readonly Role[]>
+
+export type Capability = keyof typeof capabilities
+
+export function can(role: Role | null | undefined, capability: Capability): boolean {
+  return role != null && (capabilities[capability] as readonly Role[]).includes(role)
+}
+
+export const roleLabels: Record<Role, string> = {
+  owner: 'Owner',
+  fabricator: 'Fabricator',
+  reviewer: 'Reviewer',
+  technician: 'Technician',
+}
+
+export const roleDescriptions: Record<Role, string> = {
+  owner: 'Manages members and can do everything',
+  fabricator: 'Creates projects and draws circuits',
+  reviewer: 'Reads everything and signs off before the first fill',
+  technician: 'Reads everything and works the shopping list and procedures',
+}
