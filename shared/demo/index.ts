@@ -1,0 +1,2 @@
+export { demoDocument, correctedDemoDocument } from './coolantCircuit'
+export { randomCircuit, rungsFor, type RandomCircuitOptions } from './randomCircuit'
