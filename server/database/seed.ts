@@ -2,6 +2,9 @@ import { count } from 'drizzle-orm'
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js'
 import * as schema from './schema'
 import { demoAccounts, demoPassword, demoProject, demoWorkshop } from './demo'
+import { demoDocument } from '../../shared/demo'
+import { analyzeCircuit } from '../../shared/engine'
+import { writeCircuitRows } from '../utils/circuitGraph'
 
 type Db = PostgresJsDatabase<typeof schema>
 
@@ -19,7 +22,17 @@ export async function seedDemoIfEmpty(db: Db, hash: (password: string) => Promis
       if (account.role === 'fabricator') createdBy = user!.id
     }
     const [project] = await tx.insert(schema.projects).values({ ...demoProject, workshopId: workshop!.id, createdBy }).returning()
-    await tx.insert(schema.circuits).values({ workshopId: workshop!.id, projectId: project!.id, kind: 'coolant', title: 'Engine cooling' })
+    // the demo drawing keeps its deliberate problems (an open third outlet, an unbled heater high point)
+    const document = demoDocument()
+    const [circuit] = await tx.insert(schema.circuits).values({
+      workshopId: workshop!.id, projectId: project!.id, kind: 'coolant', title: document.circuit.title,
+      settings: document.circuit.settings as Record<string, unknown>, notes: document.circuit.notes ?? null,
+    }).returning()
+    await writeCircuitRows(tx, circuit!, document)
+    await tx.insert(schema.circuitRevisions).values({
+      circuitId: circuit!.id, workshopId: workshop!.id, version: circuit!.version,
+      document: document as unknown as Record<string, unknown>, summary: analyzeCircuit(document).counts, savedBy: createdBy,
+    })
   })
   return true
 }

@@ -1,15 +1,16 @@
-import { and, eq } from 'drizzle-orm'
 import { idParam } from '#shared/schemas/common'
 import { circuitRenameInput } from '#shared/schemas/circuitRecord'
 
-// Rename a circuit.
+// Rename a circuit. The title is part of the drawing's document, so a rename is a new version
+// (an editor open elsewhere learns of it at its next save instead of writing the old title back).
 export default defineEventHandler(async (event) => {
-  const { workshopId } = await requireMember(event, 'circuit:write')
+  const { workshopId, user } = await requireMember(event, 'circuit:write')
   const { id } = await paramsOf(event, idParam)
   const input = await bodyOf(event, circuitRenameInput)
-  const [row] = await useDb().update(schema.circuits).set({ title: input.title, updatedAt: new Date() })
-    .where(and(eq(schema.circuits.id, id), eq(schema.circuits.workshopId, workshopId)))
-    .returning()
-  if (!row) notFound('No such circuit')
-  return row
+  const db = useDb()
+  const circuit = await findCircuit(db, workshopId, id)
+  const document = await loadCircuitDocument(db, circuit)
+  document.circuit.title = input.title
+  const saved = await saveCircuit(workshopId, user.id, id, circuit.version, document)
+  return { ...circuit, title: input.title, version: saved.version }
 })

@@ -1,0 +1,11 @@
+import { idParam } from '#shared/schemas/common'
+import { circuitSaveInput } from '#shared/schemas/circuitRecord'
+
+// Save the whole graph. A stale baseVersion answers 409 and writes nothing.
+export default defineEventHandler(async (event) => {
+  const { workshopId, user } = await requireMember(event, 'circuit:write')
+  const { id } = await paramsOf(event, idParam)
+  const input = await bodyOf(event, circuitSaveInput)
+  const document = documentOrFail(input.document)
+  return await saveCircuit(workshopId, user.id, id, input.baseVersion, document)
+})
