@@ -4,7 +4,7 @@ import vue from 'eslint-plugin-vue'
 import vueParser from 'vue-eslint-parser'
 
 export default tseslint.config(
-  { ignores: ['.nuxt/**', '.output/**', 'node_modules/**', '.data/**', 'test-results/**', 'tests/screenshots/**', 'drizzle/**', 'coverage/**'] },
+  { ignores: ['.nuxt/**', '.nuxt-*/**', '.output/**', '.output-*/**', 'node_modules/**', '.data/**', 'test-results/**', 'tests/screenshots/**', 'drizzle/**', 'coverage/**'] },
   ...tseslint.configs.recommended,
   ...vue.configs['flat/recommended'],
   {

@@ -2,7 +2,12 @@
 import { cpSync, existsSync } from 'node:fs'
 import { resolve } from 'node:path'
 
+// HOSEWRIGHT_BUILD_TAG gives a build its own .nuxt-<tag>/.output-<tag> folders, so several
+// builds of one checkout (e.g. parallel work, or a benchmark build) do not overwrite each other.
+const buildTag = process.env.HOSEWRIGHT_BUILD_TAG
+
 export default defineNuxtConfig({
+  ...(buildTag ? { buildDir: `.nuxt-${buildTag}` } : {}),
   compatibilityDate: '2026-01-01',
   telemetry: false,
   devtools: { enabled: false },
@@ -26,6 +31,7 @@ export default defineNuxtConfig({
   },
   typescript: { strict: true, typeCheck: false },
   nitro: {
+    ...(buildTag ? { output: { dir: `.output-${buildTag}` } } : {}),
     hooks: {
       // The built server applies its own migrations at start; ship them inside .output.
       compiled(nitro) {

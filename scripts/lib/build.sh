@@ -1,6 +1,9 @@
 # Build the production server when sources changed since the last build.
+# HOSEWRIGHT_BUILD_TAG=x builds into .output-x (see nuxt.config.ts).
+HW_OUTPUT="$HW_ROOT/.output${HOSEWRIGHT_BUILD_TAG:+-$HOSEWRIGHT_BUILD_TAG}"
+
 hw_needs_build() {
-  local stamp="$HW_ROOT/.output/nitro.json"
+  local stamp="$HW_OUTPUT/nitro.json"
   [ -f "$stamp" ] || return 0
   [ -n "$(cd "$HW_ROOT" && find app server shared public drizzle nuxt.config.ts tailwind.config.ts package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null)" ]
 }
