@@ -5,6 +5,7 @@
 set -uo pipefail
 source "$(dirname "$0")/lib/env.sh"
 source "$HW_ROOT/scripts/lib/build.sh"
+source "$HW_ROOT/scripts/lib/fakes.sh"
 cd "$HW_ROOT"
 
 RESULTS="$HW_ROOT/test-results"
@@ -29,6 +30,10 @@ TEST_DB="${HOSEWRIGHT_TEST_DB:-hosewright_test}"
 bash scripts/db.sh recreate "$TEST_DB" || hw_die "could not recreate the test database"
 
 export HOSEWRIGHT_TEST_DATABASE_URL="$(hw_db_url "$TEST_DB")"
+# part photos: the fake S3 (own bucket) for the test server; the photo suite checks objects in it
+hw_fake_s3_start hosewright-test || hw_die "the fake S3 did not start (log: $HW_STATE/fake-s3.log)"
+export HOSEWRIGHT_TEST_S3_URL="$S3_ENDPOINT" HOSEWRIGHT_TEST_S3_BUCKET="$S3_BUCKET"
+trap hw_fake_s3_stop EXIT
 vitest() { npx vitest run --project "$1" --reporter=default --reporter=json --outputFile="$RESULTS/$1.json"; }
 
 stage typecheck npx nuxt typecheck
@@ -42,12 +47,13 @@ start_server() {
   hw_build || return 1
   DATABASE_URL="$HOSEWRIGHT_TEST_DATABASE_URL" NUXT_SESSION_PASSWORD="test-session-password-0123456789abcdef" \
     HOSEWRIGHT_SEED_DEMO=1 HOSEWRIGHT_TRUST_PROXY=1 NITRO_HOST=127.0.0.1 NITRO_PORT="$TEST_PORT" \
-    node .output/server/index.mjs > "$RESULTS/server.log" 2>&1 &
+    HOSEWRIGHT_PHOTO_MAX_MB="${HOSEWRIGHT_PHOTO_MAX_MB:-2}" \
+    node "$HW_OUTPUT/server/index.mjs" > "$RESULTS/server.log" 2>&1 &
   server=$!
   hw_wait_for "http://127.0.0.1:$TEST_PORT/api/health" "$server" || { tail -n 30 "$RESULTS/server.log"; return 1; }
 }
 stop_server() { [ -n "$server" ] && kill -TERM "$server" 2>/dev/null && wait "$server" 2>/dev/null; server=""; }
-trap stop_server EXIT
+trap 'stop_server; hw_fake_s3_stop' EXIT
 
 stage build start_server
 if [ -n "$server" ]; then

@@ -9,6 +9,8 @@ export const capabilities = {
   'project:write': ['owner', 'fabricator'],
   'circuit:read': ['owner', 'fabricator', 'reviewer', 'technician'],
   'circuit:write': ['owner', 'fabricator'],
+  'template:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'template:write': ['owner', 'fabricator'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Capability = keyof typeof capabilities

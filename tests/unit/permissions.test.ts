@@ -10,6 +10,9 @@ const expected: Record<Capability, Record<(typeof roles)[number], boolean>> = {
   'project:write': { owner: true, fabricator: true, reviewer: false, technician: false },
   'circuit:read': { owner: true, fabricator: true, reviewer: true, technician: true },
   'circuit:write': { owner: true, fabricator: true, reviewer: false, technician: false },
+  // the workshop's part library: everyone looks parts up, those who draw keep it
+  'template:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'template:write': { owner: true, fabricator: true, reviewer: false, technician: false },
 }
 
 describe('role rules', () => {

@@ -1,0 +1,2 @@
+// The photo as uploaded.
+export default defineEventHandler(event => sendPhoto(event, 'image'))

@@ -1,0 +1,2 @@
+// The photo's small WebP, for lists and the inspector strip.
+export default defineEventHandler(event => sendPhoto(event, 'thumbnail'))
