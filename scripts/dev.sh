@@ -12,8 +12,11 @@ export HOSEWRIGHT_SEED_DEMO="${HOSEWRIGHT_SEED_DEMO:-1}"
 # part photos: a local fake S3 unless S3_ENDPOINT names a real service; stopped when nuxt dev ends.
 # nuxt dev runs as a child (keeping the terminal's input) so a signal to this script reaches it too.
 hw_fake_s3_start hosewright || hw_die "the fake S3 did not start (log: $HW_STATE/fake-s3.log)"
+# e-mail: a local catcher unless SMTP_HOST names a real server; sent mail shows on /outbox
+hw_fake_smtp_start || hw_die "the fake SMTP server did not start (log: $HW_STATE/fake-smtp.log)"
+export HOSEWRIGHT_MAIL_OUTBOX_PAGE="${HOSEWRIGHT_MAIL_OUTBOX_PAGE:-1}" HOSEWRIGHT_MAIL_POLL_MS="${HOSEWRIGHT_MAIL_POLL_MS:-1000}"
 dev=""
-trap '[ -n "$dev" ] && kill -TERM "$dev" 2>/dev/null; hw_fake_s3_stop' EXIT
+trap '[ -n "$dev" ] && kill -TERM "$dev" 2>/dev/null; hw_fake_s3_stop; hw_fake_smtp_stop' EXIT
 trap 'exit 130' INT TERM
 "$HW_ROOT/node_modules/.bin/nuxt" dev --host "${HOST:-127.0.0.1}" --port "${PORT:-3000}" <&0 &
 dev=$!

@@ -13,6 +13,9 @@ hw_build
 # part photos: a local fake S3 unless S3_ENDPOINT names a real service; stopped when this script ends
 hw_fake_s3_start hosewright || hw_die "the fake S3 did not start (log: $HW_STATE/fake-s3.log)"
 trap hw_fake_s3_stop EXIT
+# e-mail: a local catcher unless SMTP_HOST names a real server (read sent mail on /outbox)
+hw_fake_smtp_start || hw_die "the fake SMTP server did not start (log: $HW_STATE/fake-smtp.log)"
+trap 'hw_fake_s3_stop; hw_fake_smtp_stop' EXIT
 
 export DATABASE_URL="${DATABASE_URL:-$(hw_db_url)}"
 export NUXT_SESSION_PASSWORD="$(hw_session_password)"
@@ -22,7 +25,7 @@ export NITRO_HOST="$HOST" NITRO_PORT="$PORT"
 
 node .output/server/index.mjs &
 server=$!
-trap 'kill -TERM $server 2>/dev/null; wait $server 2>/dev/null; hw_fake_s3_stop; exit 0' INT TERM
+trap 'kill -TERM $server 2>/dev/null; wait $server 2>/dev/null; hw_fake_s3_stop; hw_fake_smtp_stop; exit 0' INT TERM
 if ! hw_wait_for "http://$HOST:$PORT/api/health" $server; then
   hw_die "the server did not come up"
 fi

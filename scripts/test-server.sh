@@ -18,11 +18,17 @@ TEST_PORT="${HOSEWRIGHT_TEST_PORT:-3100}"
 hw_fake_s3_start hosewright-test || hw_die "the fake S3 did not start (log: $HW_STATE/fake-s3.log)"
 s3_note="$HW_STATE/test-server-$TEST_PORT.s3"
 printf 'HOSEWRIGHT_TEST_S3_URL=%s\nHOSEWRIGHT_TEST_S3_BUCKET=%s\n' "$S3_ENDPOINT" "$S3_BUCKET" > "$s3_note"
+# e-mail: always the local catcher; the mail suites find its HTTP API in $HW_STATE/test-server-PORT.mail
+unset SMTP_HOST SMTP_PORT SMTP_SECURE SMTP_USER SMTP_PASS
+hw_fake_smtp_start --fresh || hw_die "the fake SMTP server did not start (log: $HW_STATE/fake-smtp.log)"
+mail_note="$HW_STATE/test-server-$TEST_PORT.mail"
+printf 'HOSEWRIGHT_TEST_MAIL_URL=%s\n' "$HOSEWRIGHT_MAIL_API_URL" > "$mail_note"
 server=""
 cleanup() {
   [ -n "$server" ] && kill -TERM "$server" 2>/dev/null && wait "$server" 2>/dev/null
   hw_fake_s3_stop
-  rm -f "$s3_note"
+  hw_fake_smtp_stop
+  rm -f "$s3_note" "$mail_note"
 }
 trap cleanup EXIT
 trap 'exit 143' INT TERM
@@ -30,6 +36,7 @@ trap 'exit 143' INT TERM
 DATABASE_URL="$(hw_db_url "$TEST_DB")" NUXT_SESSION_PASSWORD="test-session-password-0123456789abcdef" \
   HOSEWRIGHT_SEED_DEMO=1 HOSEWRIGHT_TRUST_PROXY=1 NITRO_HOST=127.0.0.1 NITRO_PORT="$TEST_PORT" \
   HOSEWRIGHT_PHOTO_MAX_MB="${HOSEWRIGHT_PHOTO_MAX_MB:-2}" \
+  HOSEWRIGHT_MAIL_OUTBOX_PAGE=1 HOSEWRIGHT_MAIL_POLL_MS=200 HOSEWRIGHT_MAIL_RETRY_MS=500,1000,2000 \
   node "$HW_OUTPUT/server/index.mjs" &  # the build hw_build made (HOSEWRIGHT_BUILD_TAG aware)
 server=$!
 wait "$server"

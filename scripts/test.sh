@@ -34,6 +34,12 @@ export HOSEWRIGHT_TEST_DATABASE_URL="$(hw_db_url "$TEST_DB")"
 hw_fake_s3_start hosewright-test || hw_die "the fake S3 did not start (log: $HW_STATE/fake-s3.log)"
 export HOSEWRIGHT_TEST_S3_URL="$S3_ENDPOINT" HOSEWRIGHT_TEST_S3_BUCKET="$S3_BUCKET"
 trap hw_fake_s3_stop EXIT
+# e-mail: always the local catcher (tests must never reach a real mail server); the mail suites
+# read what arrived through its HTTP API
+unset SMTP_HOST SMTP_PORT SMTP_SECURE SMTP_USER SMTP_PASS
+hw_fake_smtp_start --fresh || hw_die "the fake SMTP server did not start (log: $HW_STATE/fake-smtp.log)"
+export HOSEWRIGHT_TEST_MAIL_URL="$HOSEWRIGHT_MAIL_API_URL"
+trap 'hw_fake_s3_stop; hw_fake_smtp_stop' EXIT
 vitest() { npx vitest run --project "$1" --reporter=default --reporter=json --outputFile="$RESULTS/$1.json"; }
 
 stage typecheck npx nuxt typecheck
@@ -48,12 +54,13 @@ start_server() {
   DATABASE_URL="$HOSEWRIGHT_TEST_DATABASE_URL" NUXT_SESSION_PASSWORD="test-session-password-0123456789abcdef" \
     HOSEWRIGHT_SEED_DEMO=1 HOSEWRIGHT_TRUST_PROXY=1 NITRO_HOST=127.0.0.1 NITRO_PORT="$TEST_PORT" \
     HOSEWRIGHT_PHOTO_MAX_MB="${HOSEWRIGHT_PHOTO_MAX_MB:-2}" \
+    HOSEWRIGHT_MAIL_OUTBOX_PAGE=1 HOSEWRIGHT_MAIL_POLL_MS=200 HOSEWRIGHT_MAIL_RETRY_MS=500,1000,2000 \
     node "$HW_OUTPUT/server/index.mjs" > "$RESULTS/server.log" 2>&1 &
   server=$!
   hw_wait_for "http://127.0.0.1:$TEST_PORT/api/health" "$server" || { tail -n 30 "$RESULTS/server.log"; return 1; }
 }
 stop_server() { [ -n "$server" ] && kill -TERM "$server" 2>/dev/null && wait "$server" 2>/dev/null; server=""; }
-trap 'stop_server; hw_fake_s3_stop' EXIT
+trap 'stop_server; hw_fake_s3_stop; hw_fake_smtp_stop' EXIT
 
 stage build start_server
 if [ -n "$server" ]; then

@@ -10,6 +10,8 @@ export default defineNuxtRouteMiddleware(async (to) => {
       session.apply({ user: null })
     }
   }
+  // pages opened from an e-mail link (invitation, password reset) work signed in or out
+  if (to.meta.linkPage) return
   if (publicPages.has(to.path)) {
     if (session.signedIn && to.path !== '/about') return navigateTo('/')
     return

@@ -40,3 +40,70 @@ hw_fake_s3_stop() {
   fi
   return 0
 }
+
+HW_FAKE_SMTP_PID=""
+HW_FAKE_SMTP_WATCH_PID=""
+
+# hw_fake_smtp_start [--fresh] — when SMTP_HOST is set, that server is used and nothing starts.
+# Otherwise scripts/fake-smtp.mjs catches all mail on 127.0.0.1 (HOSEWRIGHT_SMTP_PORT, default 2525,
+# or the next free pair; its HTTP API on the port after it) and keeps the messages as JSON in
+# $HW_STATE/mail/<port> (--fresh empties that first). Exports SMTP_* for the app,
+# HOSEWRIGHT_MAIL_API_URL for people and tests, and turns the outbox page on unless told otherwise.
+hw_fake_smtp_start() {
+  local fresh="" port http dir tries
+  [ "${1:-}" = "--fresh" ] && fresh=1
+  if [ -n "${SMTP_HOST:-}" ]; then
+    hw_log "mail: SMTP server $SMTP_HOST:${SMTP_PORT:-587}"
+    return 0
+  fi
+  port="${HOSEWRIGHT_SMTP_PORT:-2525}"
+  for _ in $(seq 1 50); do
+    http=$((port + 1))
+    if hw_port_in_use "$port" || hw_port_in_use "$http"; then port=$((port + 2)); continue; fi
+    dir="$HW_STATE/mail/$port"
+    mkdir -p "$dir"
+    [ -n "$fresh" ] && find "$dir" -maxdepth 1 -name '*.json' -delete
+    node "$HW_ROOT/scripts/fake-smtp.mjs" "$port" "$http" "$dir" >>"$HW_STATE/fake-smtp.log" 2>&1 &
+    HW_FAKE_SMTP_PID=$!
+    tries=0
+    until curl -fsS "http://127.0.0.1:$http/messages?to=-" >/dev/null 2>&1; do
+      # lost the port to another process between the check and the listen: try the next pair
+      kill -0 "$HW_FAKE_SMTP_PID" 2>/dev/null || { HW_FAKE_SMTP_PID=""; break; }
+      tries=$((tries + 1)); [ $tries -gt 100 ] && { hw_fake_smtp_stop; return 1; }
+      sleep 0.1
+    done
+    if [ -n "$HW_FAKE_SMTP_PID" ]; then
+      # the catcher must not outlive this script, even when the script is killed without its trap
+      ( parent=$$; while kill -0 "$parent" 2>/dev/null && kill -0 "$HW_FAKE_SMTP_PID" 2>/dev/null; do sleep 2; done
+        kill -TERM "$HW_FAKE_SMTP_PID" 2>/dev/null ) >/dev/null 2>&1 &
+      HW_FAKE_SMTP_WATCH_PID=$!
+      export SMTP_HOST=127.0.0.1 SMTP_PORT="$port" SMTP_SECURE=0 SMTP_IGNORE_TLS=1
+      unset SMTP_USER SMTP_PASS
+      export HOSEWRIGHT_MAIL_API_URL="http://127.0.0.1:$http"
+      export HOSEWRIGHT_MAIL_OUTBOX_PAGE="${HOSEWRIGHT_MAIL_OUTBOX_PAGE:-1}"
+      hw_log "fake SMTP on 127.0.0.1:$port; sent mail at $HOSEWRIGHT_MAIL_API_URL/messages (files in $dir)"
+      return 0
+    fi
+    port=$((port + 2))
+  done
+  tail -n 20 "$HW_STATE/fake-smtp.log" >&2
+  return 1
+}
+
+hw_fake_smtp_stop() {
+  if [ -n "$HW_FAKE_SMTP_PID" ]; then
+    kill -TERM "$HW_FAKE_SMTP_PID" 2>/dev/null && wait "$HW_FAKE_SMTP_PID" 2>/dev/null || true
+    HW_FAKE_SMTP_PID=""
+  fi
+  if [ -n "$HW_FAKE_SMTP_WATCH_PID" ]; then
+    kill -TERM "$HW_FAKE_SMTP_WATCH_PID" 2>/dev/null || true
+    wait "$HW_FAKE_SMTP_WATCH_PID" 2>/dev/null || true
+    HW_FAKE_SMTP_WATCH_PID=""
+  fi
+  return 0
+}
+
+# True when something listens on 127.0.0.1:PORT.
+hw_port_in_use() {
+  (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null
+}

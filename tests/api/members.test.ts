@@ -1,29 +1,29 @@
 import { afterAll, describe, expect, it } from 'vitest'
 import { Client, addMember, signUp } from '../helpers/http'
 import { sql } from '../helpers/db'
+import { linkFrom, tokenOf, waitForMail } from '../helpers/mail'
 
 afterAll(() => sql.end())
 
 describe('members (owner only)', () => {
-  it('adds a new person with a one-time password they must replace', async () => {
+  it('adds a new person by invitation: they choose their own password', async () => {
     const { client: owner } = await signUp('members')
-    const { client: tech, oneTimePassword } = await addMember(owner, 'technician')
-    expect(oneTimePassword.length).toBeGreaterThanOrEqual(10)
+    const { client: tech, email, password } = await addMember(owner, 'technician')
     const me = await tech.get('/api/session')
-    expect(me.body.user.mustChangePassword).toBe(true)
+    expect(me.body.user).toMatchObject({ email, mustChangePassword: false })
     expect(me.body.role).toBe('technician')
-    await tech.post('/api/account/password', { currentPassword: oneTimePassword, newPassword: 'technician-own-password' })
-    expect((await tech.get('/api/session')).body.user.mustChangePassword).toBe(false)
+    expect((await new Client().post('/api/session', { email, password })).status).toBe(200)
     const list = await owner.get('/api/members')
     expect(list.body.map((m: any) => m.role).sort()).toEqual(['owner', 'technician'])
   })
 
-  it('links an existing account to a second workshop, and the user switches between them', async () => {
+  it('links an existing account to a second workshop once they accept, and the user switches between them', async () => {
     const a = await signUp('shop-a', 'Shop A')
     const b = await signUp('shop-b', 'Shop B')
     const added = await a.client.post('/api/members', { email: b.email, role: 'reviewer' })
     expect(added.status).toBe(201)
-    expect(added.body.oneTimePassword).toBeNull()
+    const token = tokenOf(linkFrom(await waitForMail(b.email, { subject: 'Join ' }), '/invite/'))
+    expect((await b.client.post(`/api/invitations/token/${token}/accept`, {})).status).toBe(200)
     const workshops = await b.client.get('/api/workshops')
     expect(workshops.body.map((w: any) => `${w.name}:${w.role}`).sort()).toEqual(['Shop A:reviewer', 'Shop B:owner'])
     const shopA = workshops.body.find((w: any) => w.name === 'Shop A')

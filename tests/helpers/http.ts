@@ -1,4 +1,6 @@
 // A tiny HTTP client for the API suites: keeps cookies like a browser and never throws on status.
+import { linkFrom, tokenOf, waitForMail } from './mail'
+
 export const baseUrl = (() => {
   const url = process.env.HOSEWRIGHT_TEST_URL
   if (!url) throw new Error('HOSEWRIGHT_TEST_URL is not set: run the suites through `npm test`')
@@ -58,13 +60,16 @@ export async function signUp(tag = 'owner', workshopName = `Test shop ${tag}`) {
   return { client, email, summary: res.body }
 }
 
-/** Adds a member with a role to the owner's workshop and returns a client signed in as them. */
+/** Invites someone into the owner's workshop, follows the link from the e-mail that arrived and
+ *  accepts with a new account; returns a client signed in as them. */
 export async function addMember(owner: Client, role: string, tag = role) {
   const email = uniqueEmail(tag)
-  const added = await owner.post('/api/members', { email, role, name: `Test ${tag}` })
-  if (added.status !== 201) throw new Error(`adding member failed: ${added.status} ${JSON.stringify(added.body)}`)
+  const invited = await owner.post('/api/members', { email, role, name: `Test ${tag}` })
+  if (invited.status !== 201) throw new Error(`inviting failed: ${invited.status} ${JSON.stringify(invited.body)}`)
+  const mail = await waitForMail(email, { subject: 'Join ' })
+  const token = tokenOf(linkFrom(mail, '/invite/'))
   const client = new Client(owner.forwardedFor)
-  const signedIn = await client.post('/api/session', { email, password: added.body.oneTimePassword })
-  if (signedIn.status !== 200) throw new Error(`member sign-in failed: ${signedIn.status}`)
-  return { client, email, membershipId: added.body.id as string, oneTimePassword: added.body.oneTimePassword as string }
+  const accepted = await client.post(`/api/invitations/token/${token}/accept`, { name: `Test ${tag}`, password: goodPassword })
+  if (accepted.status !== 200) throw new Error(`accepting the invitation failed: ${accepted.status} ${JSON.stringify(accepted.body)}`)
+  return { client, email, password: goodPassword, membershipId: accepted.body.membershipId as string, invitationId: invited.body.id as string }
 }

@@ -1,34 +1,26 @@
-import { randomBytes } from 'node:crypto'
 import { and, eq } from 'drizzle-orm'
 import { memberAddInput } from '#shared/schemas/membership'
+import { wakeMailWorker } from '../../mail/worker'
 
-// Add a member by e-mail. An unknown address gets an account with a one-time password, shown once
-// to the owner to hand over; the new member must choose their own at first sign-in.
+// Invite someone by e-mail (owner only). They get a link; accepting it creates their account (or
+// links an existing one) and the membership. Nobody joins a workshop without following the link.
 export default defineEventHandler(async (event) => {
-  const { workshopId } = await requireMember(event, 'members:manage')
+  const { workshopId, user } = await requireMember(event, 'members:manage')
   const input = await bodyOf(event, memberAddInput)
-  const oneTimePassword = randomBytes(9).toString('base64url')
-  const hash = await hashPassword(oneTimePassword)
-  const result = await useDb().transaction(async (tx) => {
-    let [user] = await tx.select().from(schema.users).where(eq(schema.users.email, input.email))
-    let created = false
-    if (!user) {
-      [user] = await tx.insert(schema.users).values({
-        email: input.email, name: input.name ?? input.email.split('@')[0]!, passwordHash: hash, mustChangePassword: true,
-      }).returning()
-      created = true
-    }
-    const [existing] = await tx.select().from(schema.memberships)
-      .where(and(eq(schema.memberships.workshopId, workshopId), eq(schema.memberships.userId, user!.id)))
-    if (existing) return null
-    const [membership] = await tx.insert(schema.memberships).values({ workshopId, userId: user!.id, role: input.role }).returning()
-    return { membership: membership!, user: user!, created }
+  const invitation = await useDb().transaction(async (tx) => {
+    const [member] = await tx.select({ id: schema.memberships.id }).from(schema.memberships)
+      .innerJoin(schema.users, eq(schema.users.id, schema.memberships.userId))
+      .where(and(eq(schema.memberships.workshopId, workshopId), eq(schema.users.email, input.email)))
+    if (member) return null
+    const row = await createInvitation(tx, { workshopId, email: input.email, name: input.name ?? null, role: input.role, invitedBy: user.id })
+    await logActivity(tx, { workshopId, projectId: null, actorId: user.id, action: 'member.invited', details: { email: row.email, role: row.role } })
+    return row
   })
-  if (!result) invalidInput([{ path: 'email', message: 'This person is already a member' }])
+  if (!invitation) invalidInput([{ path: 'email', message: 'This person is already a member of this workshop' }])
+  wakeMailWorker()
   setResponseStatus(event, 201)
   return {
-    id: result.membership.id, role: result.membership.role,
-    userId: result.user.id, email: result.user.email, name: result.user.name,
-    oneTimePassword: result.created ? oneTimePassword : null,
+    id: invitation.id, email: invitation.email, name: invitation.name, role: invitation.role,
+    createdAt: invitation.createdAt, expiresAt: invitation.expiresAt,
   }
 })
