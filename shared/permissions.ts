@@ -11,6 +11,17 @@ export const capabilities = {
   'circuit:write': ['owner', 'fabricator'],
   'template:read': ['owner', 'fabricator', 'reviewer', 'technician'],
   'template:write': ['owner', 'fabricator'],
+  // review before the first fill: who draws submits, reviewers and owners sign off (and nobody their
+  // own submission unless the workshop allows it: shared/review/approval.ts)
+  'review:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'review:submit': ['owner', 'fabricator'],
+  'review:decide': ['owner', 'reviewer'],
+  // everyone on the job may pin a remark to the drawing; owners may remove anyone's
+  'comment:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'comment:write': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'comment:moderate': ['owner'],
+  'activity:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'workshop:settings': ['owner'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Capability = keyof typeof capabilities

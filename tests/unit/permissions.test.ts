@@ -13,6 +13,15 @@ const expected: Record<Capability, Record<(typeof roles)[number], boolean>> = {
   // the workshop's part library: everyone looks parts up, those who draw keep it
   'template:read': { owner: true, fabricator: true, reviewer: true, technician: true },
   'template:write': { owner: true, fabricator: true, reviewer: false, technician: false },
+  // review: fabricators put versions up, reviewers and owners sign off, technicians read the result
+  'review:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'review:submit': { owner: true, fabricator: true, reviewer: false, technician: false },
+  'review:decide': { owner: true, fabricator: false, reviewer: true, technician: false },
+  'comment:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'comment:write': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'comment:moderate': { owner: true, fabricator: false, reviewer: false, technician: false },
+  'activity:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'workshop:settings': { owner: true, fabricator: false, reviewer: false, technician: false },
 }
 
 describe('role rules', () => {

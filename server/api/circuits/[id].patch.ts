@@ -12,5 +12,6 @@ export default defineEventHandler(async (event) => {
   const document = await loadCircuitDocument(db, circuit)
   document.circuit.title = input.title
   const saved = await saveCircuit(workshopId, user.id, id, circuit.version, document)
+  await logActivity(db, { workshopId, projectId: circuit.projectId, circuitId: id, actorId: user.id, action: 'circuit.renamed', details: { from: circuit.title, to: input.title, version: saved.version } })
   return { ...circuit, title: input.title, version: saved.version }
 })

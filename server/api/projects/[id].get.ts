@@ -10,5 +10,6 @@ export default defineEventHandler(async (event) => {
   const circuits = await db.select().from(schema.circuits)
     .where(and(eq(schema.circuits.projectId, id), eq(schema.circuits.workshopId, workshopId)))
     .orderBy(asc(schema.circuits.kind), asc(schema.circuits.title))
-  return { ...project, circuits }
+  const status = await reviewStatusFor(db, workshopId, circuits)
+  return { ...project, circuits: circuits.map(c => ({ ...c, reviewStatus: status.get(c.id)! })) }
 })

@@ -4,7 +4,7 @@ import { templateUpdateInput } from '#shared/schemas/template'
 
 // Rename a template or replace its part. Parts already drawn from it keep what they were placed with.
 export default defineEventHandler(async (event) => {
-  const { workshopId } = await requireMember(event, 'template:write')
+  const { workshopId, user } = await requireMember(event, 'template:write')
   const { id } = await paramsOf(event, idParam)
   const input = await bodyOf(event, templateUpdateInput)
   const t = schema.partTemplates
@@ -14,6 +14,7 @@ export default defineEventHandler(async (event) => {
   try {
     const [row] = await useDb().update(t).set(changes).where(and(eq(t.id, id), eq(t.workshopId, workshopId))).returning()
     if (!row) notFound('No such template')
+    await logActivity(useDb(), { workshopId, projectId: null, actorId: user.id, action: 'template.updated', details: { templateId: row.id, name: row.name } })
     return row
   } catch (error) {
     if (isUniqueViolation(error)) {

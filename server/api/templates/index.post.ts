@@ -8,6 +8,7 @@ export default defineEventHandler(async (event) => {
     workshopId, name: input.name, type: input.body.type, body: input.body as Record<string, unknown>, createdBy: user.id,
   }).onConflictDoNothing().returning()
   if (!row) invalidInput([{ path: 'name', message: `A template named “${input.name}” already exists in this workshop` }], 'Choose another name.')
+  await logActivity(useDb(), { workshopId, projectId: null, actorId: user.id, action: 'template.created', details: { templateId: row.id, name: row.name } })
   setResponseStatus(event, 201)
   return row
 })

@@ -12,5 +12,6 @@ export default defineEventHandler(async (event) => {
     circuit: { id: circuit.id, projectId: circuit.projectId, kind: circuit.kind, title: circuit.title, version: circuit.version, updatedAt: circuit.updatedAt },
     document,
     report: analyzeCircuit(document),
+    reviewStatus: await reviewStatusOf(db, workshopId, circuit),
   }
 })

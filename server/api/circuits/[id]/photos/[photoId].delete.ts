@@ -4,7 +4,7 @@ import { photoParams } from '#shared/schemas/photo'
 // Delete a photo: its objects first, then the row, so a storage outage (503) keeps the photo listed
 // and a retry finishes the job (deleting an object that is already gone succeeds).
 export default defineEventHandler(async (event) => {
-  const { workshopId } = await requireMember(event, 'circuit:write')
+  const { workshopId, user } = await requireMember(event, 'circuit:write')
   const { id, photoId } = await paramsOf(event, photoParams)
   const db = useDb()
   const p = schema.partPhotos
@@ -12,6 +12,10 @@ export default defineEventHandler(async (event) => {
   const [photo] = await db.select().from(p).where(scope)
   if (!photo) notFound('No such photo')
   await deleteStoredObjects([photo.objectKey, photo.thumbnailKey])
-  await db.delete(p).where(scope)
+  await db.transaction(async (tx) => {
+    await tx.delete(p).where(scope)
+    const circuit = await findCircuit(tx, workshopId, id)
+    await logActivity(tx, { workshopId, projectId: circuit.projectId, circuitId: id, actorId: user.id, action: 'photo.deleted', details: { photoId, componentId: photo.componentId, label: photo.label } })
+  })
   return { ok: true }
 })

@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const { workshopId, user } = await requireMember(event, 'circuit:write')
   const { id } = await paramsOf(event, idParam)
   const db = useDb()
-  await findCircuit(db, workshopId, id)
+  const circuit = await findCircuit(db, workshopId, id)
 
   const { fields, file } = await readPhotoForm(event)
   const issues: Array<{ path: string; message: string }> = []
@@ -36,6 +36,7 @@ export default defineEventHandler(async (event) => {
       objectKey, thumbnailKey, contentType, sizeBytes: file.data.length, width, height,
       label: photoLabel(file.filename), uploadedBy: user.id,
     }).returning()
+    await logActivity(db, { workshopId, projectId: circuit.projectId, circuitId: id, actorId: user.id, action: 'photo.uploaded', details: { photoId, componentId: row!.componentId, label: row!.label } })
     setResponseStatus(event, 201)
     return photoItem(row!, { id: user.id, name: user.name })
   } catch (error) {

@@ -16,6 +16,7 @@ export default defineEventHandler(async (event) => {
       settings: document.circuit.settings as Record<string, unknown>, notes: document.circuit.notes ?? null,
     }).returning()
     const report = await storeVersion(tx, circuit!, circuit!.version, document, user.id)
+    await logActivity(tx, { workshopId, projectId: id, circuitId: circuit!.id, actorId: user.id, action: 'circuit.imported', details: { title: circuit!.title, kind: circuit!.kind } })
     await tx.update(schema.projects).set({ updatedAt: new Date() }).where(eq(schema.projects.id, id))
     return { circuit: circuit!, report }
   })

@@ -13,6 +13,7 @@ export default defineEventHandler(async (event) => {
       .values({ ...input, projectId: id, workshopId, settings: document.circuit.settings as Record<string, unknown> }).returning()
     // version 1 is the empty drawing, kept like every later version
     await storeVersion(tx, circuit!, circuit!.version, document, user.id)
+    await logActivity(tx, { workshopId, projectId: id, circuitId: circuit!.id, actorId: user.id, action: 'circuit.created', details: { title: circuit!.title, kind: circuit!.kind } })
     await tx.update(schema.projects).set({ updatedAt: new Date() }).where(eq(schema.projects.id, id))
     return circuit
   })

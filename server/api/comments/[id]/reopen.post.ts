@@ -1,0 +1,2 @@
+// Open a resolved thread again.
+export default defineEventHandler(event => setThreadResolved(event, false))

@@ -1,0 +1,2 @@
+// Mark a thread done.
+export default defineEventHandler(event => setThreadResolved(event, true))
