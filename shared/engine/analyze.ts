@@ -5,7 +5,7 @@ import { flowFindings } from './checks/flowChecks'
 import { fluidFindings } from './checks/fluid'
 import { airTraps, fillNotHighest } from './checks/heights'
 import { danglingHoses, openPorts, roleConflicts, sizeMismatches } from './checks/structure'
-import { buildContext, type AnalysisContext, type AnalyzeOptions, type Check } from './context'
+import { buildContext, type AnalysisContext, type Check } from './context'
 import { solveState } from './flow/solve'
 import { capLines, clampCounts, clampLines, fittingCounts, thermostatLines } from './quantities/parts'
 import { hoseLines, hoseTotals } from './quantities/hoses'
@@ -20,14 +20,15 @@ const LAYOUT_CHECKS: Check[] = [openPorts, danglingHoses, roleConflicts, sizeMis
 const SEVERITY_ORDER: Record<Severity, number> = { error: 0, warning: 1, note: 2 }
 
 function sortFindings(ctx: AnalysisContext, findings: Finding[]): Finding[] {
-  const firstRank = (f: Finding) => (f.elementIds.length > 0 ? ctx.model.rankOf(f.elementIds[0]!) : -1)
-  return findings.sort(
+  const keyed = findings.map((f) => ({ f, severity: SEVERITY_ORDER[f.severity], rank: f.elementIds.length > 0 ? ctx.model.rankOf(f.elementIds[0]!) : -1 }))
+  keyed.sort(
     (a, b) =>
-      SEVERITY_ORDER[a.severity] - SEVERITY_ORDER[b.severity] ||
-      (a.code < b.code ? -1 : a.code > b.code ? 1 : 0) ||
-      firstRank(a) - firstRank(b) ||
-      (a.message < b.message ? -1 : a.message > b.message ? 1 : 0),
+      a.severity - b.severity ||
+      (a.f.code < b.f.code ? -1 : a.f.code > b.f.code ? 1 : 0) ||
+      a.rank - b.rank ||
+      (a.f.message < b.f.message ? -1 : a.f.message > b.f.message ? 1 : 0),
   )
+  return keyed.map((k) => k.f)
 }
 
 export function computeQuantities(ctx: AnalysisContext): Quantities {
@@ -53,8 +54,8 @@ export function computeQuantities(ctx: AnalysisContext): Quantities {
  * same report whatever the order of its elements or the names of its ids (the ids themselves appear
  * in elementIds and fix actions).
  */
-export function analyzeCircuit(doc: CircuitDocument, options: AnalyzeOptions = {}): Report {
-  const ctx = buildContext(doc, options)
+export function analyzeCircuit(doc: CircuitDocument): Report {
+  const ctx = buildContext(doc)
   const findings: Finding[] = LAYOUT_CHECKS.flatMap((check) => check(ctx))
   const quantities = computeQuantities(ctx)
   findings.push(...fluidFindings(ctx, quantities.coolant))

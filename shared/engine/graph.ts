@@ -1,49 +1,71 @@
-// The circuit as a graph: nodes are ports, part centres (a pump has a suction and a discharge centre)
-// and free hose ends; edges are hoses, the paths inside parts, and the pump. Built with graphlib, then
-// copied to index arrays for the linear-time passes below.
-import { Graph } from '@dagrejs/graphlib'
+// The circuit as a part-level multigraph: one node per part (the main water pump has two, suction and
+// discharge), one per free hose end; one edge per hose and one for the main pump. Two hoses between
+// the same two parts are parallel edges. Ports are not nodes: a port joins one hose to one part, so it
+// sits on the hose's edge and adds no branch. Loops, bridges and dead legs come out the same as on a
+// graph with a node per port (that graph is this one with each hose split into three edges in a row,
+// and a stub per unjoined port).
+//
+// Held in typed arrays (compressed rows of incident edges): the bridge and loop passes run on every
+// analysis, once per valve state, and stay linear in the circuit's size. The bridge tree over the
+// loops, which the dead-leg check walks, is a graphlib graph (checks/loopTree.ts).
 import type { CircuitModel, CompInfo, HoseInfo, PortInfo } from './model'
-
-export type EdgeKind = 'hose' | 'internal' | 'pump'
-
-export interface TopoEdge {
-  name: string
-  kind: EdgeKind
-  v: number
-  w: number
-  hose?: HoseInfo
-  port?: PortInfo
-  comp?: CompInfo
-}
-
-export interface TopoGraph {
-  /** the graphlib graph, for callers that want graphlib's algorithms; null when not asked for */
-  graph: Graph | null
-  nodeNames: string[]
-  nodeIndex: Map<string, number>
-  edges: TopoEdge[]
-  /** per node, the indices of its edges */
-  adjacency: number[][]
-  /** node index of each part's centre, by part rank, and of each port, by port rank */
-  centreIndex: Int32Array
-  portIndex: Int32Array
-  /** per edge: shut while the thermostat is closed */
-  shutWhenCold: boolean[]
-  /** per edge: shut by a heater valve turned off (flow solve only) */
-  shutByValve: boolean[]
-}
-
-export const centreNode = (c: CompInfo) => `c:${c.comp.id}`
-export const dischargeNode = (c: CompInfo) => `c:${c.comp.id}:out`
-export const portNode = (p: PortInfo) => `p:${p.port.id}`
-export const freeEndNode = (h: HoseInfo, end: 'from' | 'to') => `e:${h.hose.id}:${end}`
 
 export type ValveState = 'open' | 'closed'
 
+export interface GraphNode {
+  /** the part id, `<id>/discharge` for the pump's outlet side, `<hose id>/<end>` for a free end */
+  name: string
+  index: number
+  comp: CompInfo | null
+  /** a free hose end */
+  freeEnd: { hose: HoseInfo; end: 'from' | 'to' } | null
+}
+
+export interface GraphEdge {
+  /** the hose id, or `<pump id>/pump` */
+  name: string
+  index: number
+  kind: 'hose' | 'pump'
+  /** node indices: the hose's `from` end and `to` end; the pump's suction and discharge */
+  v: number
+  w: number
+  hose: HoseInfo | null
+}
+
+export interface CircuitGraph {
+  nodes: GraphNode[]
+  edges: GraphEdge[]
+  /** edges at node v: incident[start[v] … start[v + 1]) */
+  start: Int32Array
+  incident: Int32Array
+  /** node of each part, by part rank (the suction side for the main pump) */
+  partNode: Int32Array
+  /** the main pump: its discharge node and pump edge (−1 without a pump) */
+  dischargeNode: number
+  pumpEdge: number
+  /** edge of each hose, by hose rank */
+  hoseEdge: Int32Array
+  pump: CompInfo | undefined
+  /** per edge: shut while the thermostat is closed */
+  shutWhenCold: Uint8Array
+  /** per edge: shut by a heater valve turned off (flow solve only) */
+  shutByValve: Uint8Array
+}
+
+/** The main pump: the first water pump in stable order. Others are passages, like any part. */
+export function mainPump(model: CircuitModel): CompInfo | undefined {
+  return model.components.find((c) => c.comp.type === 'water-pump')
+}
+
+/** Pump ports on the discharge side are the outlets; everything else feeds the suction. */
+export function pumpSideOf(port: PortInfo): 'suction' | 'discharge' {
+  return port.port.role === 'outlet' ? 'discharge' : 'suction'
+}
+
 /**
  * Ports whose inside path is shut: a cold thermostat's valve (unless it has a bypass hole). A heater
- * valve turned off shuts only in the flow solve (withHeaterValves), not in the layout checks: the layout
- * must work with the valve open.
+ * valve turned off shuts only in the flow solve (withHeaterValves), not in the layout checks: the
+ * layout must work with the valve open.
  */
 export function isPathShut(port: PortInfo, state: ValveState, withHeaterValves = false): boolean {
   const comp = port.comp.comp
@@ -54,148 +76,130 @@ export function isPathShut(port: PortInfo, state: ValveState, withHeaterValves =
   return false
 }
 
-/** Pump ports on the discharge side are the outlets; everything else feeds the suction. */
-export function pumpSideOf(port: PortInfo): 'suction' | 'discharge' {
-  return port.port.role === 'outlet' ? 'discharge' : 'suction'
-}
-
-/**
- * Builds the graph once with every path open. `shutWhenCold` marks the thermostat paths that close
- * below the opening temperature and `shutByValve` the paths of heater valves turned off, so each state
- * is the same graph with some edges masked out.
- */
-export function buildTopoGraph(model: CircuitModel, withGraphlib = true): TopoGraph {
-  // One hose per port end and one path per port make every node pair unique: a simple graph will do.
-  const graph = withGraphlib ? new Graph({ directed: false }) : null
-  const nodeNames: string[] = []
-  const nodeIndex = new Map<string, number>()
-  const edges: TopoEdge[] = []
-  const shutWhenCold: boolean[] = []
-  const shutByValve: boolean[] = []
-  const centreIndex = new Int32Array(model.components.length)
-  const portIndex = new Int32Array(model.ports.length)
-  const addNode = (name: string) => {
-    nodeIndex.set(name, nodeNames.length)
-    nodeNames.push(name)
-    graph?.setNode(name)
-    return nodeNames.length - 1
+export function buildCircuitGraph(model: CircuitModel): CircuitGraph {
+  const pump = mainPump(model)
+  const nodes: GraphNode[] = []
+  const edges: GraphEdge[] = []
+  const partNode = new Int32Array(model.components.length)
+  const addNode = (name: string, comp: CompInfo | null, freeEnd: GraphNode['freeEnd']) => {
+    const node: GraphNode = { name, index: nodes.length, comp, freeEnd }
+    nodes.push(node)
+    return node.index
   }
-  const addEdge = (e: TopoEdge, v: string, w: string, cold: boolean, valve: boolean) => {
-    graph?.setEdge(v, w, edges.length)
-    edges.push(e)
-    shutWhenCold.push(cold)
-    shutByValve.push(valve)
-  }
+  let dischargeNode = -1
   for (const c of model.components) {
-    centreIndex[c.rank] = addNode(centreNode(c))
-    if (c.comp.type === 'water-pump') addNode(dischargeNode(c))
-    for (const p of c.ports) portIndex[p.rank] = addNode(portNode(p))
+    partNode[c.rank] = addNode(c.comp.id, c, null)
+    if (c === pump) dischargeNode = addNode(`${c.comp.id}/discharge`, c, null)
   }
+  const endNode = (h: HoseInfo, end: 'from' | 'to'): number => {
+    const port = h[end].port
+    if (!port) return addNode(`${h.hose.id}/${end}`, null, { hose: h, end })
+    return port.comp === pump && pumpSideOf(port) === 'discharge' ? dischargeNode : partNode[port.comp.rank]!
+  }
+  const addEdge = (name: string, kind: GraphEdge['kind'], v: number, w: number, hose: HoseInfo | null) => {
+    const edge: GraphEdge = { name, index: edges.length, kind, v, w, hose }
+    edges.push(edge)
+    return edge.index
+  }
+  const pumpEdge = pump ? addEdge(`${pump.comp.id}/pump`, 'pump', partNode[pump.rank]!, dischargeNode, null) : -1
+  const hoseEdge = new Int32Array(model.hoses.length)
+  for (const h of model.hoses) hoseEdge[h.rank] = addEdge(h.hose.id, 'hose', endNode(h, 'from'), endNode(h, 'to'), h)
+  const shutWhenCold = new Uint8Array(edges.length)
+  const shutByValve = new Uint8Array(edges.length)
   for (const h of model.hoses) {
-    for (const end of [h.from, h.to]) if (!end.port) addNode(freeEndNode(h, end.name))
-  }
-  for (const c of model.components) {
-    const isPump = c.comp.type === 'water-pump'
-    const centre = centreNode(c)
-    if (isPump) {
-      const d = dischargeNode(c)
-      addEdge({ name: `pump:${c.comp.id}`, kind: 'pump', comp: c, v: nodeIndex.get(centre)!, w: nodeIndex.get(d)! }, centre, d, false, false)
-    }
-    for (const p of c.ports) {
-      const inner = isPump && pumpSideOf(p) === 'discharge' ? dischargeNode(c) : centre
-      const pn = portNode(p)
-      addEdge(
-        { name: `i:${p.port.id}`, kind: 'internal', port: p, comp: c, v: nodeIndex.get(inner)!, w: nodeIndex.get(pn)! },
-        inner, pn, isPathShut(p, 'closed'), isPathShut(p, 'open', true),
-      )
+    for (const end of [h.from, h.to]) {
+      if (!end.port) continue
+      const e = hoseEdge[h.rank]!
+      if (isPathShut(end.port, 'closed')) shutWhenCold[e] = 1
+      if (isPathShut(end.port, 'open', true)) shutByValve[e] = 1
     }
   }
-  for (const h of model.hoses) {
-    const a = h.from.port ? portNode(h.from.port) : freeEndNode(h, 'from')
-    const b = h.to.port ? portNode(h.to.port) : freeEndNode(h, 'to')
-    addEdge({ name: `h:${h.hose.id}`, kind: 'hose', hose: h, v: nodeIndex.get(a)!, w: nodeIndex.get(b)! }, a, b, false, false)
-  }
-  const adjacency: number[][] = nodeNames.map(() => [])
-  edges.forEach((e, i) => {
-    adjacency[e.v]!.push(i)
-    if (e.w !== e.v) adjacency[e.w]!.push(i)
-  })
-  return { graph, nodeNames, nodeIndex, edges, adjacency, centreIndex, portIndex, shutWhenCold, shutByValve }
+  // incident edges per node, in edge order (a self-loop is listed once)
+  const start = new Int32Array(nodes.length + 1)
+  for (const e of edges) { start[e.v + 1]!++; if (e.w !== e.v) start[e.w + 1]!++ }
+  for (let v = 0; v < nodes.length; v++) start[v + 1]! += start[v]!
+  const fill = start.slice(0, nodes.length)
+  const incident = new Int32Array(start[nodes.length]!)
+  for (const e of edges) { incident[fill[e.v]!++] = e.index; if (e.w !== e.v) incident[fill[e.w]!++] = e.index }
+  return { nodes, edges, start, incident, partNode, dischargeNode, pumpEdge, hoseEdge, pump, shutWhenCold, shutByValve }
 }
 
-export interface EdgeClasses {
-  /** per edge: true when removing it disconnects the graph, so no steady flow can pass it (false for removed edges) */
-  isBridge: boolean[]
+/** The graph in one valve state: which edges are there, which are bridges, and the loop classes. */
+export interface StateGraph {
+  circuit: CircuitGraph
+  /** per edge: not there in this state */
+  removed: Uint8Array
+  /** per edge: removing it would disconnect its ends, so no steady flow can pass it (0 for removed edges) */
+  isBridge: Uint8Array
   /** per node: its 2-edge-connected class; nodes in one class lie on common closed loops */
-  classOf: number[]
+  classOf: Int32Array
+  classCount: number
 }
 
 /**
- * Bridges by an iterative Tarjan low-link pass over the edges not in `removed`; parallel edges are
- * told apart by edge index.
+ * Bridges and 2-edge-connected classes in one iterative depth-first pass, skipping removed edges
+ * (Tarjan's low-link method). A node whose low-link equals its own discovery time closes a class: it
+ * and the nodes found after it that are still open. Parallel edges are told apart by edge index, so
+ * two hoses between the same parts form a loop.
  */
-export function edgeClasses(t: TopoGraph, removed?: readonly boolean[]): EdgeClasses {
-  const n = t.nodeNames.length
+export function stateGraph(circuit: CircuitGraph, removed: Uint8Array): StateGraph {
+  const { nodes, edges, start, incident } = circuit
+  const n = nodes.length
   const disc = new Int32Array(n).fill(-1)
   const low = new Int32Array(n)
-  const isBridge: boolean[] = new Array(t.edges.length).fill(false)
+  const classOf = new Int32Array(n).fill(-1)
+  const isBridge = new Uint8Array(edges.length)
+  // the depth-first stack: node, the edge it was reached by, how far through its edges
+  const stackNode = new Int32Array(n)
+  const stackVia = new Int32Array(n)
+  const stackPos = new Int32Array(n)
+  const open = new Int32Array(n)
+  let openTop = 0
   let time = 0
-  const stackNode: number[] = []
-  const stackEdge: number[] = []
-  const stackPos: number[] = []
+  let classes = 0
   for (let root = 0; root < n; root++) {
     if (disc[root] !== -1) continue
+    let top = 0
     disc[root] = low[root] = time++
-    stackNode.push(root); stackEdge.push(-1); stackPos.push(0)
-    while (stackNode.length > 0) {
-      const top = stackNode.length - 1
+    open[openTop++] = root
+    stackNode[0] = root
+    stackVia[0] = -1
+    stackPos[0] = start[root]!
+    while (top >= 0) {
       const v = stackNode[top]!
-      const adj = t.adjacency[v]!
       const pos = stackPos[top]!
-      if (pos < adj.length) {
+      if (pos < start[v + 1]!) {
         stackPos[top] = pos + 1
-        const ei = adj[pos]!
-        if (ei === stackEdge[top] || removed?.[ei]) continue
-        const e = t.edges[ei]!
+        const ei = incident[pos]!
+        if (ei === stackVia[top] || removed[ei]) continue
+        const e = edges[ei]!
         const w = e.v === v ? e.w : e.v
         if (disc[w] === -1) {
           disc[w] = low[w] = time++
-          stackNode.push(w); stackEdge.push(ei); stackPos.push(0)
+          open[openTop++] = w
+          top++
+          stackNode[top] = w
+          stackVia[top] = ei
+          stackPos[top] = start[w]!
         } else if (disc[w]! < low[v]!) low[v] = disc[w]!
-      } else {
-        stackNode.pop(); const via = stackEdge.pop()!; stackPos.pop()
-        if (via >= 0) {
-          const e = t.edges[via]!
-          const parent = e.v === v ? e.w : e.v
-          if (low[v]! < low[parent]!) low[parent] = low[v]!
-          if (low[v]! > disc[parent]!) isBridge[via] = true
-        }
+        continue
+      }
+      // v is done: it closes a class if nothing below it reaches above it
+      if (low[v] === disc[v]) {
+        let u: number
+        do {
+          u = open[--openTop]!
+          classOf[u] = classes
+        } while (u !== v)
+        classes++
+        if (stackVia[top]! >= 0) isBridge[stackVia[top]!] = 1
+      }
+      top--
+      if (top >= 0) {
+        const parent = stackNode[top]!
+        if (low[v]! < low[parent]!) low[parent] = low[v]!
       }
     }
   }
-  const classOf: number[] = new Array(n).fill(-1)
-  let next = 0
-  const queue: number[] = []
-  for (let s = 0; s < n; s++) {
-    if (classOf[s] !== -1) continue
-    classOf[s] = next
-    queue.length = 0
-    queue.push(s)
-    for (let qi = 0; qi < queue.length; qi++) {
-      const v = queue[qi]!
-      for (const ei of t.adjacency[v]!) {
-        if (isBridge[ei] || removed?.[ei]) continue
-        const e = t.edges[ei]!
-        const w = e.v === v ? e.w : e.v
-        if (classOf[w] === -1) { classOf[w] = next; queue.push(w) }
-      }
-    }
-    next++
-  }
-  return { isBridge, classOf }
-}
-
-/** The main pump: the first water pump in stable order (others are modelled as passages). */
-export function mainPump(model: CircuitModel): CompInfo | undefined {
-  return model.components.find((c) => c.comp.type === 'water-pump')
+  return { circuit, removed, isBridge, classOf, classCount: classes }
 }

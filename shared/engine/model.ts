@@ -1,7 +1,7 @@
 // An indexed, stably ordered view of a circuit. Everything downstream iterates these arrays, never the
 // document's own order, so a report does not change when elements are reordered or ids renamed.
 import {
-  polylineLengthMm, portWorldPosition,
+  distanceMm,
   type Circuit, type Component, type Hose, type Point3, type Port,
 } from '../circuit'
 
@@ -9,8 +9,9 @@ export interface PortInfo {
   port: Port
   comp: CompInfo
   world: Point3
-  /** the hose end joined to this port, if any */
-  joined: { hose: HoseInfo; end: 'from' | 'to' } | null
+  /** the hose joined to this port, if any, and which of its ends */
+  joined: HoseInfo | null
+  joinedEnd: 'from' | 'to'
   rank: number
 }
 
@@ -34,8 +35,6 @@ export interface HoseInfo {
   tag: string
   from: HoseEndInfo
   to: HoseEndInfo
-  /** end, route points, end */
-  points: Point3[]
   drawnLengthMm: number
   /** measured length when given, else drawn: the length coolant flows through */
   lengthMm: number
@@ -60,9 +59,72 @@ function comparePoints(a: Point3, b: Point3): number {
   return a.x - b.x || a.y - b.y || a.z - b.z
 }
 
+/** Ports by offset, then wording and size; the id breaks ties only between identical twins. */
+function comparePorts(a: Port, b: Port): number {
+  return comparePoints(a.offset, b.offset) ||
+    compareText(a.name, b.name) || compareText(a.role, b.role) ||
+    a.spigotOdMm - b.spigotOdMm || Number(a.blocked) - Number(b.blocked) || compareText(a.id, b.id)
+}
+
+/**
+ * Hoses by the positions of their ends, then bore, wall and length; material and id only between
+ * identical twins. The numbers are read into one array first, so that the comparisons do not chase
+ * pointers through the document.
+ */
+function sortHoses(hoses: HoseInfo[]): void {
+  const n = hoses.length
+  const keys = new Float64Array(10 * n)
+  for (let i = 0; i < n; i++) {
+    const h = hoses[i]!
+    const f = h.from.point
+    const t = h.to.point
+    const k = 10 * i
+    keys[k] = f.x; keys[k + 1] = f.y; keys[k + 2] = f.z
+    keys[k + 3] = t.x; keys[k + 4] = t.y; keys[k + 5] = t.z
+    keys[k + 6] = h.hose.insideDiameterMm; keys[k + 7] = h.hose.wallMm
+    keys[k + 8] = h.drawnLengthMm; keys[k + 9] = h.hose.measuredLengthMm ?? -1
+  }
+  const order = Array.from({ length: n }, (_, i) => i)
+  order.sort((a, b) => {
+    const ka = 10 * a
+    const kb = 10 * b
+    for (let j = 0; j < 10; j++) {
+      const d = keys[ka + j]! - keys[kb + j]!
+      if (d !== 0) return d
+    }
+    const ha = hoses[a]!.hose
+    const hb = hoses[b]!.hose
+    return compareText(ha.material, hb.material) || compareText(ha.id, hb.id)
+  })
+  const sorted = order.map((i) => hoses[i]!)
+  for (let i = 0; i < n; i++) hoses[i] = sorted[i]!
+}
+
+/** Insertion sort: a part has a handful of ports, and Array.sort's set-up costs more than the sort. */
+function sortSmall<T>(items: T[], compare: (a: T, b: T) => number): T[] {
+  for (let i = 1; i < items.length; i++) {
+    const x = items[i]!
+    let j = i - 1
+    while (j >= 0 && compare(items[j]!, x) > 0) { items[j + 1] = items[j]!; j-- }
+    items[j + 1] = x
+  }
+  return items
+}
+
+/**
+ * Length through end, route points, end: the sum of the straight pieces, as polylineLengthMm
+ * (shared/circuit) adds them, without building the list of points.
+ */
+export function routeLengthMm(from: Point3, route: readonly Point3[], to: Point3): number {
+  let total = 0
+  let a = from
+  for (const b of route) { total += distanceMm(a, b); a = b }
+  return total + distanceMm(a, to)
+}
+
 export function buildModel(circuit: Circuit): CircuitModel {
   // Parts ordered by kind, place, then wording; the id breaks ties only between identical twins.
-  const comps = [...circuit.components].sort(
+  const comps = circuit.components.slice().sort(
     (a, b) =>
       compareText(a.type, b.type) ||
       comparePoints(a.position, b.position) ||
@@ -70,61 +132,54 @@ export function buildModel(circuit: Circuit): CircuitModel {
       a.rotationDeg - b.rotationDeg || a.volumeL - b.volumeL || a.ports.length - b.ports.length ||
       compareText(a.id, b.id),
   )
-  const components: CompInfo[] = []
+  const components: CompInfo[] = new Array(comps.length)
   const ports: PortInfo[] = []
   const compById = new Map<string, CompInfo>()
   const portById = new Map<string, PortInfo>()
-  for (const comp of comps) {
-    const info: CompInfo = { comp, ports: [], topZ: comp.position.z, rank: components.length }
-    const sortedPorts = [...comp.ports].sort(
-      (a, b) =>
-        comparePoints(a.offset, b.offset) ||
-        compareText(a.name, b.name) || compareText(a.role, b.role) ||
-        a.spigotOdMm - b.spigotOdMm || Number(a.blocked) - Number(b.blocked) || compareText(a.id, b.id),
-    )
+  for (let ci = 0; ci < comps.length; ci++) {
+    const comp = comps[ci]!
+    const info: CompInfo = { comp, ports: [], topZ: comp.position.z, rank: ci }
+    const sortedPorts = comp.ports.length < 2 ? comp.ports : sortSmall(comp.ports.slice(), comparePorts)
+    // portWorldPosition, with the part's rotation worked out once
+    const a = (comp.rotationDeg * Math.PI) / 180
+    const cos = Math.cos(a)
+    const sin = Math.sin(a)
+    const { x: px, y: py, z: pz } = comp.position
     for (const port of sortedPorts) {
-      const world = portWorldPosition(comp, port)
-      const p: PortInfo = { port, comp: info, world, joined: null, rank: 0 }
+      const o = port.offset
+      const world = { x: px + o.x * cos - o.y * sin, y: py + o.x * sin + o.y * cos, z: pz + o.z }
+      const p: PortInfo = { port, comp: info, world, joined: null, joinedEnd: 'from', rank: ports.length }
       info.ports.push(p)
+      ports.push(p)
       if (world.z > info.topZ) info.topZ = world.z
       portById.set(port.id, p)
     }
-    components.push(info)
+    components[ci] = info
     compById.set(comp.id, info)
   }
-  for (const c of components) for (const p of c.ports) { p.rank = ports.length; ports.push(p) }
 
   const endInfo = (h: Hose, name: 'from' | 'to'): HoseEndInfo => {
     const end = h[name]
     const port = end.portId === null ? null : portById.get(end.portId) ?? null
     return { name, port, point: port ? port.world : end.point ?? { x: 0, y: 0, z: 0 } }
   }
-  const drafts = circuit.hoses.map((hose) => {
+  const hoses: HoseInfo[] = circuit.hoses.map((hose) => {
     const from = endInfo(hose, 'from')
     const to = endInfo(hose, 'to')
-    const points = [from.point, ...hose.params.route, to.point]
-    const drawnLengthMm = polylineLengthMm(points)
-    return { hose, from, to, points, drawnLengthMm }
+    const drawnLengthMm = routeLengthMm(from.point, hose.params.route, to.point)
+    return { hose, tag: '', from, to, drawnLengthMm, lengthMm: hose.measuredLengthMm ?? drawnLengthMm, rank: 0 }
   })
-  drafts.sort(
-    (a, b) =>
-      comparePoints(a.from.point, b.from.point) ||
-      comparePoints(a.to.point, b.to.point) ||
-      a.hose.insideDiameterMm - b.hose.insideDiameterMm || a.hose.wallMm - b.hose.wallMm ||
-      a.drawnLengthMm - b.drawnLengthMm || (a.hose.measuredLengthMm ?? -1) - (b.hose.measuredLengthMm ?? -1) ||
-      compareText(a.hose.material, b.hose.material) || compareText(a.hose.id, b.hose.id),
-  )
-  const hoses: HoseInfo[] = drafts.map((d, i) => ({
-    ...d,
-    tag: `H${i + 1}`,
-    lengthMm: d.hose.measuredLengthMm ?? d.drawnLengthMm,
-    rank: i,
-  }))
+  sortHoses(hoses)
   const hoseById = new Map<string, HoseInfo>()
-  for (const h of hoses) {
+  for (let i = 0; i < hoses.length; i++) {
+    const h = hoses[i]!
+    h.rank = i
+    h.tag = `H${i + 1}`
     hoseById.set(h.hose.id, h)
-    for (const end of [h.from, h.to]) if (end.port) end.port.joined = { hose: h, end: end.name }
+    if (h.from.port) { h.from.port.joined = h; h.from.port.joinedEnd = 'from' }
+    if (h.to.port) { h.to.port.joined = h; h.to.port.joinedEnd = 'to' }
   }
+  // one order over every element: parts, then ports, then hoses
   const nComp = components.length
   const nPort = ports.length
   const rankOf = (id: string): number => {
@@ -161,5 +216,13 @@ export function fmt(n: number, decimals?: number): string {
 
 /** A size in mm as a fabricator writes it: 16, 15.88, 7.94 (two decimals at most, no trailing zeros). */
 export function size(mm: number): string {
-  return String(Number(mm.toFixed(2)))
+  let text = sizeTexts.get(mm)
+  if (text === undefined) {
+    text = String(Number(mm.toFixed(2)))
+    // a drawing has a handful of sizes; the cache only saves formatting them over and over
+    if (sizeTexts.size > 4096) sizeTexts.clear()
+    sizeTexts.set(mm, text)
+  }
+  return text
 }
+const sizeTexts = new Map<number, string>()

@@ -1,6 +1,6 @@
 // The one place the engine reaches into the physics layer, so a change of its API touches one file.
 export {
   boilingPoint, coolantProperties, freezePoint, solveNetwork, bendK, craneFullyTurbulentFrictionFactor,
-  ROUGHNESS_M, SHARP_ENTRANCE_K, EXIT_K,
+  ROUGHNESS_M, SHARP_ENTRANCE_K, EXIT_K, QUADRATIC_LAW_LINEAR_BELOW_M3S, STANDARD_GRAVITY,
 } from '../physics'
 export type { CoolantMix, FluidState, Network, NetworkLink, NetworkNode, NetworkResult, LinkResult } from '../physics'

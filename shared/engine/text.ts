@@ -1,20 +1,32 @@
 // The report as plain text for people at the bench (the CLI's --format text).
 import { fmt, size } from './model'
-import type { FlowReport } from './flow/types'
+import type { BranchKind, FlowReport } from './flow/types'
 import type { Report } from './report'
 
 const SEVERITY_WORD = { error: 'ERROR', warning: 'WARNING', note: 'NOTE' } as const
+
+/** What each kind of branch is, in words. */
+const BRANCH_WORDS: Record<BranchKind, string> = {
+  pump: 'pump', radiator: 'radiator', heater: 'heater', bypass: 'bypass', vent: 'vent line',
+  feed: 'pump feed', return: 'main return', run: 'run',
+}
 
 function flowLines(name: string, f: FlowReport): string[] {
   if (!f.solved) return [`Flow, thermostat ${name}: ${f.reason}`]
   const lines = [
     `Flow, thermostat ${name} (${fmt(f.temperatureC, 0)} °C, ρ ${fmt(f.fluid.densityKgM3, 1)} kg/m³, μ ${fmt(f.fluid.viscosityPaS * 1000, 3)} mPa·s): pump ${fmt(f.pumpFlowLpm, 1)} L/min, rise ${fmt(f.pumpRiseKpa, 1)} kPa${f.converged ? '' : ' (did not settle)'}`,
+    '  Branches, in the order the coolant reaches them (share of the pump flow; the branches leaving a part add up to what reached it):',
   ]
-  for (const b of f.branches) lines.push(`  ${b.kind.padEnd(8)} ${fmt(b.flowLpm, 1).padStart(7)} L/min ${fmt(b.shareOfPump * 100, 0).padStart(4)} %  ${b.label}${b.tags.length && b.label !== b.tags.join(', ') ? ` (${b.tags.join(', ')})` : ''}`)
+  for (const b of f.branches) {
+    lines.push(`    ${BRANCH_WORDS[b.kind].padEnd(11)} ${fmt(b.flowLpm, 1).padStart(7)} L/min ${fmt(b.shareOfPump * 100, 0).padStart(4)} %  ${b.label}${b.tags.length ? ` (${b.tags.join(', ')})` : ''}`)
+  }
+  lines.push('  Hoses (loss in the hose itself: wall friction and bends):')
   for (const h of f.hoses) {
     if (!h.carriesFlow) continue
-    lines.push(`  ${h.tag.padEnd(5)} ${fmt(h.flowLpm, 1).padStart(7)} L/min ${fmt(h.velocityMS, 2).padStart(6)} m/s  Re ${fmt(h.reynolds, 0).padStart(7)}  drop ${fmt(h.dropKpa, 2)} kPa`)
+    lines.push(`    ${h.tag.padEnd(5)} ${fmt(h.flowLpm, 1).padStart(7)} L/min ${fmt(h.velocityMS, 2).padStart(6)} m/s  Re ${fmt(h.reynolds, 0).padStart(7)}  loss ${fmt(h.headLossKpa, 2)} kPa`)
   }
+  lines.push('  Parts (drop from the port coolant enters by to the port it leaves by):')
+  for (const p of f.parts) lines.push(`    ${p.label}: ${fmt(p.flowLpm, 1)} L/min through, drop ${fmt(p.dropKpa, 2)} kPa`)
   return lines
 }
 

@@ -1,7 +1,7 @@
 // Whether coolant can go round at all, with the thermostat open and shut, and whether the parts a
 // sealed coolant system needs are there.
-import { makeFinding, type AnalysisContext, type Check, type StateGraph } from '../context'
-import { centreNode, dischargeNode } from '../graph'
+import { makeFinding, type AnalysisContext, type Check } from '../context'
+import type { StateGraph } from '../graph'
 import { fmt, type CompInfo } from '../model'
 import type { Finding } from '../report'
 import { TERMINAL_TYPES } from './deadLegs'
@@ -13,16 +13,14 @@ const TYPE_WORDS: Record<(typeof LOOP_TYPES)[number], string> = { 'water-pump': 
 export function pumpLoopClass(ctx: AnalysisContext, g: StateGraph): number | null {
   const pump = ctx.pump
   if (!pump) return null
-  const s = g.topo.nodeIndex.get(centreNode(pump))!
-  const d = g.topo.nodeIndex.get(dischargeNode(pump))!
-  const cls = g.classes.classOf[s]!
-  return g.classes.classOf[d] === cls ? cls : null
+  const cls = g.classOf[ctx.graph.partNode[pump.rank]!]!
+  return g.classOf[ctx.graph.dischargeNode] === cls ? cls : null
 }
 
 export function onPumpLoop(ctx: AnalysisContext, g: StateGraph, c: CompInfo): boolean {
   const cls = pumpLoopClass(ctx, g)
   if (cls === null) return false
-  return g.classes.classOf[g.topo.nodeIndex.get(centreNode(c))!] === cls
+  return g.classOf[ctx.graph.partNode[c.rank]!] === cls
 }
 
 /** True when the pump, every engine and every radiator share one closed loop (thermostat open). */

@@ -2,7 +2,8 @@
 // that leads nowhere must also leave by the same way), so a branch hanging off the loop is dead unless
 // it was built to end there: a bleed, drain, vent, fill or overflow line, or a tank.
 import { makeFinding, type AnalysisContext, type Check } from '../context'
-import { centreNode, type TopoGraph } from '../graph'
+import type { GraphEdge } from '../graph'
+import { buildLoopTree, loopName } from './loopTree'
 import { hoseName, portName, type CompInfo, type HoseInfo, type PortInfo } from '../model'
 import type { Finding } from '../report'
 
@@ -10,128 +11,119 @@ import type { Finding } from '../report'
 export const TERMINAL_TYPES = new Set(['bleed-valve', 'drain', 'overflow-bottle', 'expansion-tank', 'deaeration-pot', 'pressure-cap'])
 const TERMINAL_ROLES = new Set(['vent', 'fill', 'drain'])
 
-interface NodeMeta {
-  comp?: CompInfo
-  port?: PortInfo
-  hoseEnd?: HoseInfo
-}
+const endsAtPurpose = (p: PortInfo | null) => p !== null && TERMINAL_ROLES.has(p.port.role)
 
-/** What each graph node stands for, by index. */
-export function nodeMeta(ctx: AnalysisContext, topo: TopoGraph): NodeMeta[] {
-  const meta: NodeMeta[] = topo.nodeNames.map(() => ({}))
-  for (const c of ctx.model.components) {
-    meta[topo.centreIndex[c.rank]!]!.comp = c
-    for (const p of c.ports) meta[topo.portIndex[p.rank]!]!.port = p
-  }
-  for (const h of ctx.model.hoses) {
-    for (const end of ['from', 'to'] as const) {
-      const i = topo.nodeIndex.get(`e:${h.hose.id}:${end}`)
-      if (i !== undefined) meta[i]!.hoseEnd = h
-    }
-  }
-  return meta
-}
-
+/**
+ * The bridges form a tree over the loop classes, rooted at the pump's class. For each class below the
+ * root, with its entry hose from the parent (ends `a` on the parent's side, `c` on its own):
+ * - the subtree is justified when it holds a terminal part, or a hose inside it ends at a vent, fill
+ *   or drain port; a vent, fill or drain port justifies the branch on the pump's side of it only;
+ * - `c` being such a port justifies the entry hose (the line is built to end there) but not what lies
+ *   beyond the part it is on;
+ * - the biggest unjustified branch is reported once: the entry hose and its subtree when neither `c`
+ *   nor the subtree is justified, else the subtree alone when it holds hoses.
+ */
 export const deadLegs: Check = (ctx) => {
   const pump = ctx.pump
   if (!pump) return []
-  const { topo, classes } = ctx.open
-  const { isBridge, classOf } = classes
-  const suction = topo.nodeIndex.get(centreNode(pump))!
-  const pumpEdge = topo.edges.findIndex((e) => e.kind === 'pump' && e.comp === pump)
-  if (pumpEdge < 0 || isBridge[pumpEdge]) return [] // nothing circulates at all: no-circulation says so
-  const meta = nodeMeta(ctx, topo)
-  const nClasses = Math.max(...classOf) + 1
-  const members: number[][] = Array.from({ length: nClasses }, () => [])
-  classOf.forEach((c, v) => members[c]!.push(v))
+  const g = ctx.open
+  const { edges } = ctx.graph
+  const { isBridge, classOf } = g
+  if (isBridge[ctx.graph.pumpEdge]) return [] // nothing circulates at all: no-circulation says so
+  const nClasses = g.classCount
+  const root = classOf[ctx.graph.partNode[pump.rank]!]!
+  const tree = buildLoopTree(ctx, root)
 
-  // A node justifies the branch it ends: a terminal part, or a vent/fill/drain port reached by a hose.
-  const purpose = new Array<boolean>(nClasses).fill(false)
-  topo.nodeNames.forEach((_, v) => {
-    const m = meta[v]!
-    const ok = (m.comp && TERMINAL_TYPES.has(m.comp.comp.type)) || (m.port && m.port.joined && TERMINAL_ROLES.has(m.port.port.role))
-    if (ok) purpose[classOf[v]!] = true
-  })
-  const bridgesOf: number[][] = Array.from({ length: nClasses }, () => [])
-  const innerHoses = new Array<number>(nClasses).fill(0)
-  topo.edges.forEach((e, i) => {
-    if (isBridge[i]) { bridgesOf[classOf[e.v]!]!.push(i); bridgesOf[classOf[e.w]!]!.push(i) }
-    else if (e.kind === 'hose') innerHoses[classOf[e.v]!]!++
-  })
-
-  // The bridges form a forest over the classes; root it at the pump's class.
-  const root = classOf[suction]!
-  const parentEdge = new Array<number>(nClasses).fill(-2)
-  const order: number[] = [root]
+  // per class: a terminal part or a purposeful port in it; its non-bridge hoses
+  const purpose = new Uint8Array(nClasses)
+  const innerHoses = new Int32Array(nClasses)
+  for (const node of ctx.graph.nodes) if (node.comp && TERMINAL_TYPES.has(node.comp.comp.type)) purpose[classOf[node.index]!] = 1
+  for (const e of edges) {
+    if (e.kind !== 'hose' || isBridge[e.index]) continue
+    innerHoses[classOf[e.v]!]!++
+    if (endsAtPurpose(e.hose!.from.port) || endsAtPurpose(e.hose!.to.port)) purpose[classOf[e.v]!] = 1
+  }
+  // the tree, breadth first from the pump's loop, through graphlib
+  const parentEdge = new Int32Array(nClasses).fill(-2)
+  const parentClass = new Int32Array(nClasses).fill(-1)
   parentEdge[root] = -1
+  const order: number[] = [root]
   for (let i = 0; i < order.length; i++) {
     const c = order[i]!
-    for (const ei of bridgesOf[c]!) {
-      const e = topo.edges[ei]!
-      const other = classOf[e.v] === c ? classOf[e.w]! : classOf[e.v]!
-      if (parentEdge[other] === -2) { parentEdge[other] = ei; order.push(other) }
+    const name = loopName(c)
+    for (const te of tree.nodeEdges(name) ?? []) {
+      const other = tree.node(te.v === name ? te.w : te.v)!.loop
+      if (parentEdge[other] !== -2) continue
+      parentEdge[other] = tree.edge(te)!.index
+      parentClass[other] = c
+      order.push(other)
     }
   }
-  const justified = [...purpose]
-  const hoseCount = [...innerHoses]
-  const parentOf = (c: number) => {
-    const e = topo.edges[parentEdge[c]!]!
-    return classOf[e.v] === c ? classOf[e.w]! : classOf[e.v]!
-  }
+  const parentOf = (c: number) => parentClass[c]!
+  const sideOf = (e: GraphEdge, c: number) => (classOf[e.v] === c ? e.hose!.from.port : e.hose!.to.port)
+  // leaves first: subtree hose counts and justification; a purposeful port on the parent's side of an
+  // entry hose justifies the parent
+  const justified = purpose.slice()
+  const hoseCount = innerHoses.slice()
+  const entryJustified = new Uint8Array(nClasses)
   for (let i = order.length - 1; i > 0; i--) {
     const c = order[i]!
+    const e = edges[parentEdge[c]!]!
     const p = parentOf(c)
-    if (justified[c]) justified[p] = true
-    hoseCount[p]! += hoseCount[c]! + (topo.edges[parentEdge[c]!]!.kind === 'hose' ? 1 : 0)
+    entryJustified[c] = endsAtPurpose(sideOf(e, c)) || justified[c] ? 1 : 0
+    if (entryJustified[c] || endsAtPurpose(sideOf(e, p))) justified[p] = 1
+    hoseCount[p]! += hoseCount[c]! + 1
   }
-
   const out: Finding[] = []
   for (let i = 1; i < order.length; i++) {
     const c = order[i]!
+    if (justified[c]) continue
     const p = parentOf(c)
-    const viaHose = topo.edges[parentEdge[c]!]!.kind === 'hose' ? 1 : 0
-    if (justified[c] || hoseCount[c]! + viaHose === 0) continue
-    if (p !== root && !justified[p]) continue // inside a dead branch already reported
-    out.push(describeDeadBranch(ctx, topo, meta, classOf, order, parentEdge, c))
+    if (!entryJustified[c]) {
+      if (p !== root && !justified[p]) continue // inside a dead branch already reported
+      out.push(describeDeadBranch(ctx, order, parentEdge, parentOf, c, true))
+    } else if (hoseCount[c]! > 0) {
+      out.push(describeDeadBranch(ctx, order, parentEdge, parentOf, c, false))
+    }
   }
   return out
 }
 
 function describeDeadBranch(
-  ctx: AnalysisContext, topo: TopoGraph, meta: NodeMeta[], classOf: number[],
-  order: number[], parentEdge: number[], top: number,
+  ctx: AnalysisContext, order: number[], parentEdge: Int32Array, parentOf: (c: number) => number,
+  top: number, withEntry: boolean,
 ): Finding {
-  // Collect the subtree: classes below `top` in BFS order.
+  const { nodes, edges } = ctx.graph
+  const { classOf } = ctx.open
+  // the subtree: classes below `top`, in breadth-first order
   const inSub = new Set<number>([top])
-  for (const c of order) {
-    if (c === top || parentEdge[c]! < 0) continue
-    const e = topo.edges[parentEdge[c]!]!
-    const parent = classOf[e.v] === c ? classOf[e.w]! : classOf[e.v]!
-    if (inSub.has(parent)) inSub.add(c)
+  for (const c of order) if (c !== top && parentEdge[c]! >= 0 && inSub.has(parentOf(c))) inSub.add(c)
+  const entry = edges[parentEdge[top]!]!
+  const hoses: HoseInfo[] = withEntry ? [entry.hose!] : []
+  for (const e of edges) {
+    if (e.kind === 'hose' && e !== entry && inSub.has(classOf[e.v]!) && inSub.has(classOf[e.w]!)) hoses.push(e.hose!)
   }
-  const hoses: HoseInfo[] = []
   const comps: CompInfo[] = []
   const ports: PortInfo[] = []
   const deadEnds: string[] = []
-  const entry = topo.edges[parentEdge[top]!]!
-  if (entry.hose) hoses.push(entry.hose)
-  topo.edges.forEach((e, i) => {
-    if (e.kind === 'hose' && e.hose && inSub.has(classOf[e.v]!) && inSub.has(classOf[e.w]!) && (i !== parentEdge[top])) hoses.push(e.hose)
-  })
-  topo.nodeNames.forEach((_, v) => {
-    if (!inSub.has(classOf[v]!)) return
-    const m = meta[v]!
-    if (m.comp) comps.push(m.comp)
-    if (m.port) ports.push(m.port)
-    if (topo.adjacency[v]!.length === 1) {
-      if (m.port) deadEnds.push(`${portName(m.port)} (${m.port.port.blocked ? 'plugged' : m.port.joined ? 'joined' : 'open'})`)
-      else if (m.comp) deadEnds.push(m.comp.comp.label)
-      else if (m.hoseEnd) deadEnds.push(`the free end of ${hoseName(m.hoseEnd)}`)
+  for (const c of ctx.model.components) {
+    if (!inSub.has(classOf[ctx.graph.partNode[c.rank]!]!)) continue
+    comps.push(c)
+    if (c.ports.length === 1) deadEnds.push(c.comp.label)
+    for (const p of c.ports) {
+      ports.push(p)
+      if (!p.joined) deadEnds.push(`${portName(p)} (${p.port.blocked ? 'plugged' : 'open'})`)
     }
-  })
+  }
+  for (const node of nodes) {
+    if (node.freeEnd && inSub.has(classOf[node.index]!)) deadEnds.push(`the free end of ${hoseName(node.freeEnd.hose)}`)
+  }
   hoses.sort((a, b) => a.rank - b.rank)
-  comps.sort((a, b) => a.rank - b.rank)
-  const start = entry.port ?? (entry.hose && (classOf[topo.edges[parentEdge[top]!]!.v] === top ? entry.hose.to.port : entry.hose.from.port)) ?? null
+  // where the branch leaves the loop: the entry hose's port on the loop side, or (when the entry is
+  // justified) the port on this side that the entry hose reaches
+  const entrySide = classOf[entry.v] === top ? entry.hose!.to.port : entry.hose!.from.port
+  const ownSide = classOf[entry.v] === top ? entry.hose!.from.port : entry.hose!.to.port
+  const start = withEntry ? entrySide : ownSide
   const startText = start ? `from ${portName(start)}` : ''
   const heater = comps.find((c) => c.comp.type === 'heater-core')
   const what = heater

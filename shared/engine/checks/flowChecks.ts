@@ -10,19 +10,20 @@ const DIRECTION_NOISE_LPM = 0.1
 export function flowFindings(ctx: AnalysisContext, open: SolvedState, closed: SolvedState): Finding[] {
   const out: Finding[] = []
   const states = [open, closed].filter((s) => s.report.solved)
-  // high-velocity: the worst of the two states, one finding per hose
-  const worst = new Map<string, { v: number; state: string; q: number }>()
-  for (const s of states) {
-    if (!s.report.solved) continue
-    for (const h of s.report.hoses) {
-      const v = Math.abs(h.velocityMS)
-      const prev = worst.get(h.hoseId)
-      if (v > ctx.thresholds.maxVelocityMS && (!prev || v > prev.v)) worst.set(h.hoseId, { v, state: s.report.state, q: Math.abs(h.flowLpm) })
+  // high-velocity: the worst of the two states, one finding per hose (the reports list the hoses in
+  // the model's order)
+  const hoses = ctx.model.hoses
+  for (let i = 0; i < hoses.length; i++) {
+    const h = hoses[i]!
+    let worst: { v: number; state: string; q: number } | null = null
+    for (const s of states) {
+      if (!s.report.solved) continue
+      const hf = s.report.hoses[i]!
+      const v = Math.abs(hf.velocityMS)
+      if (v > ctx.thresholds.maxVelocityMS && (!worst || v > worst.v)) worst = { v, state: s.report.state, q: Math.abs(hf.flowLpm) }
     }
-  }
-  for (const h of ctx.model.hoses) {
-    const w = worst.get(h.hose.id)
-    if (!w) continue
+    if (!worst) continue
+    const w = worst
     out.push(makeFinding(ctx, 'high-velocity', 'warning',
       `Coolant runs at ${fmt(w.v, 2)} m/s in ${hoseName(h)} (${fmt(w.q, 1)} L/min through ${fmt(h.hose.insideDiameterMm, 1)} mm bore, thermostat ${w.state}), above ${fmt(ctx.thresholds.maxVelocityMS, 1)} m/s: expect erosion and noise.`,
       [h.hose.id],
@@ -44,10 +45,13 @@ export function flowFindings(ctx: AnalysisContext, open: SolvedState, closed: So
   const reported = new Set<string>()
   for (const s of states) {
     if (!s.report.solved) continue
-    for (const hf of s.report.hoses) {
+    const flows = s.report.hoses
+    for (let i = 0; i < hoses.length; i++) {
+      const hf = flows[i]!
       if (Math.abs(hf.flowLpm) < DIRECTION_NOISE_LPM) continue
-      const h = ctx.model.hoseById.get(hf.hoseId)!
-      for (const end of [h.from, h.to]) {
+      const h = hoses[i]!
+      for (let e = 0; e < 2; e++) {
+        const end = e === 0 ? h.from : h.to
         const p = end.port
         if (!p || (p.port.role !== 'inlet' && p.port.role !== 'outlet') || reported.has(p.port.id)) continue
         const leavesPort = end.name === 'from' ? hf.flowLpm > 0 : hf.flowLpm < 0

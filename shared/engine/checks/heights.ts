@@ -5,74 +5,9 @@ import type { Point3 } from '../../circuit'
 import { makeFinding, type AnalysisContext, type Check } from '../context'
 import { fmt, hoseName, portName, type CompInfo, type HoseInfo, type PortInfo } from '../model'
 import type { Finding } from '../report'
+import { heightOrder, type HeightGraph, heightGraphOf, PART_TOP, PORT, ROUTE_POINT } from './heightGraph'
 
-const VENT_TYPES = new Set(['bleed-valve', 'pressure-cap', 'expansion-tank', 'deaeration-pot'])
 const FILL_TYPES = new Set(['pressure-cap', 'expansion-tank', 'deaeration-pot'])
-
-interface HeightVertex {
-  z: number
-  at: Point3
-  comp?: CompInfo
-  port?: PortInfo
-  hose?: HoseInfo
-  /** air can be let out here */
-  vent: boolean
-  /** an open port or free hose end: air (and coolant) already escapes here */
-  open: boolean
-}
-
-export interface HeightGraph {
-  vertices: HeightVertex[]
-  neighbours: number[][]
-}
-
-const isOverflowLine = (h: HoseInfo) =>
-  h.from.port?.comp.comp.type === 'overflow-bottle' || h.to.port?.comp.comp.type === 'overflow-bottle'
-
-const heightGraphs = new WeakMap<AnalysisContext, HeightGraph>()
-
-/** The height graph, built once per analysis and shared by the air-trap and filler checks. */
-export function heightGraphOf(ctx: AnalysisContext): HeightGraph {
-  let g = heightGraphs.get(ctx)
-  if (!g) { g = buildHeightGraph(ctx); heightGraphs.set(ctx, g) }
-  return g
-}
-
-export function buildHeightGraph(ctx: AnalysisContext): HeightGraph {
-  const vertices: HeightVertex[] = []
-  const neighbours: number[][] = []
-  const add = (v: HeightVertex) => { vertices.push(v); neighbours.push([]); return vertices.length - 1 }
-  const link = (a: number, b: number) => { neighbours[a]!.push(b); neighbours[b]!.push(a) }
-  const portVertex = new Map<PortInfo, number>()
-  for (const c of ctx.model.components) {
-    if (c.comp.type === 'overflow-bottle') continue
-    const ventPart = VENT_TYPES.has(c.comp.type)
-    const centre = add({ z: c.topZ, at: { x: c.comp.position.x, y: c.comp.position.y, z: c.topZ }, comp: c, vent: ventPart, open: false })
-    for (const p of c.ports) {
-      const role = p.port.role
-      const pv = add({
-        z: p.world.z, at: p.world, comp: c, port: p,
-        vent: ventPart || role === 'vent' || role === 'fill',
-        open: !p.port.blocked && !p.joined,
-      })
-      portVertex.set(p, pv)
-      link(centre, pv)
-    }
-  }
-  for (const h of ctx.model.hoses) {
-    if (isOverflowLine(h)) continue
-    const endVertex = (end: HoseInfo['from']) =>
-      end.port ? portVertex.get(end.port)! : add({ z: end.point.z, at: end.point, hose: h, vent: false, open: true })
-    let prev = endVertex(h.from)
-    for (const r of h.hose.params.route) {
-      const v = add({ z: r.z, at: r, hose: h, vent: false, open: false })
-      link(prev, v)
-      prev = v
-    }
-    link(prev, endVertex(h.to))
-  }
-  return { vertices, neighbours }
-}
 
 /**
  * Peaks by topographic prominence: sweep the vertices from the top down, merging neighbours with a
@@ -80,8 +15,9 @@ export function buildHeightGraph(ctx: AnalysisContext): HeightGraph {
  * A peak whose prominence exceeds the tolerance is a real high point (a rise then a fall along a path).
  */
 export function significantPeaks(g: HeightGraph, toleranceMm: number): number[] {
-  const n = g.vertices.length
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => g.vertices[b]!.z - g.vertices[a]!.z || a - b)
+  const { z, start, adjacent } = g
+  const n = z.length
+  const order = heightOrder(z)
   const parent = new Int32Array(n).fill(-1)
   const peak = new Int32Array(n)
   const find = (x: number): number => {
@@ -90,20 +26,26 @@ export function significantPeaks(g: HeightGraph, toleranceMm: number): number[] 
     while (parent[x] !== r) { const nx = parent[x]!; parent[x] = r; x = nx }
     return r
   }
-  const higher = (a: number, b: number) => g.vertices[a]!.z > g.vertices[b]!.z || (g.vertices[a]!.z === g.vertices[b]!.z && a < b)
   const result: number[] = []
-  for (const v of order) {
+  for (let k = 0; k < n; k++) {
+    const v = order[k]!
     parent[v] = v
     peak[v] = v
-    const z = g.vertices[v]!.z
-    for (const u of g.neighbours[v]!) {
+    const zv = z[v]!
+    for (let a = start[v]!; a < start[v + 1]!; a++) {
+      const u = adjacent[a]!
       if (parent[u] === -1) continue
       const ru = find(u)
       const rv = find(v)
       if (ru === rv) continue
-      const [keep, lose] = higher(peak[ru]!, peak[rv]!) ? [ru, rv] : [rv, ru]
+      const pu = peak[ru]!
+      const pv = peak[rv]!
+      // the higher peak (ties: the lower index) keeps the merged piece
+      const uHigher = z[pu]! > z[pv]! || (z[pu] === z[pv] && pu < pv)
+      const keep = uHigher ? ru : rv
+      const lose = uHigher ? rv : ru
       const lostPeak = peak[lose]!
-      if (lostPeak !== v && g.vertices[lostPeak]!.z - z > toleranceMm) result.push(lostPeak)
+      if (lostPeak !== v && z[lostPeak]! - zv > toleranceMm) result.push(lostPeak)
       parent[lose] = keep
     }
   }
@@ -112,54 +54,86 @@ export function significantPeaks(g: HeightGraph, toleranceMm: number): number[] 
 }
 
 /** Vertices joined to the peak through points no more than the tolerance below it. */
-function crestOf(g: HeightGraph, p: number, toleranceMm: number): number[] {
-  const floor = g.vertices[p]!.z - toleranceMm
-  const seen = new Set<number>([p])
+function crestOf(g: HeightGraph, p: number, toleranceMm: number, seen: Uint8Array): number[] {
+  const floor = g.z[p]! - toleranceMm
   const queue = [p]
+  seen[p] = 1
   for (let i = 0; i < queue.length; i++) {
-    for (const u of g.neighbours[queue[i]!]!) {
-      if (!seen.has(u) && g.vertices[u]!.z >= floor) { seen.add(u); queue.push(u) }
+    const v = queue[i]!
+    for (let a = g.start[v]!; a < g.start[v + 1]!; a++) {
+      const u = g.adjacent[a]!
+      if (!seen[u] && g.z[u]! >= floor) { seen[u] = 1; queue.push(u) }
     }
   }
+  for (const v of queue) seen[v] = 0
   return queue
 }
 
-function elementIdsOf(vs: HeightVertex[]): string[] {
+function elementIdsOf(ctx: AnalysisContext, g: HeightGraph, vs: readonly number[]): string[] {
   const ids: string[] = []
   for (const v of vs) {
-    if (v.port) ids.push(v.port.port.id)
-    else if (v.comp) ids.push(v.comp.comp.id)
-    if (v.hose) ids.push(v.hose.hose.id)
+    const port = portAt(ctx, g, v)
+    const comp = compAt(ctx, g, v)
+    const hose = hoseAt(ctx, g, v)
+    if (port) ids.push(port.port.id)
+    else if (comp) ids.push(comp.comp.id)
+    if (hose) ids.push(hose.hose.id)
   }
   return ids
+}
+
+const compAt = (ctx: AnalysisContext, g: HeightGraph, v: number): CompInfo | undefined =>
+  g.kind[v] === PART_TOP ? ctx.model.components[g.ref[v]!] : g.kind[v] === PORT ? ctx.model.ports[g.ref[v]!]!.comp : undefined
+const portAt = (ctx: AnalysisContext, g: HeightGraph, v: number): PortInfo | undefined =>
+  g.kind[v] === PORT ? ctx.model.ports[g.ref[v]!] : undefined
+const hoseAt = (ctx: AnalysisContext, g: HeightGraph, v: number): HoseInfo | undefined =>
+  g.kind[v] !== PART_TOP && g.kind[v] !== PORT ? ctx.model.hoses[g.ref[v]!] : undefined
+
+/** Where a vertex is, mm. */
+function pointAt(ctx: AnalysisContext, g: HeightGraph, v: number): Point3 {
+  const ref = g.ref[v]!
+  switch (g.kind[v]) {
+    case PART_TOP: {
+      const c = ctx.model.components[ref]!
+      return { x: c.comp.position.x, y: c.comp.position.y, z: c.topZ }
+    }
+    case PORT: return ctx.model.ports[ref]!.world
+    case ROUTE_POINT: return ctx.model.hoses[ref]!.hose.params.route[g.sub[v]!]!
+    default: return g.sub[v] === 0 ? ctx.model.hoses[ref]!.from.point : ctx.model.hoses[ref]!.to.point
+  }
 }
 
 export const airTraps: Check = (ctx) => {
   const g = heightGraphOf(ctx)
   const tol = ctx.thresholds.airTrapToleranceMm
   const out: Finding[] = []
+  const seen = new Uint8Array(g.z.length)
   for (const p of significantPeaks(g, tol)) {
-    const crest = crestOf(g, p, tol).map((i) => g.vertices[i]!)
-    if (crest.some((v) => v.vent || v.open)) continue
-    if (crest.length === 1 && g.neighbours[p]!.length <= 1 && !crest[0]!.hose) continue // a single blind port
-    const top = g.vertices[p]!
-    const where = `(${fmt(top.at.x, 0)}, ${fmt(top.at.y, 0)}) mm at ${fmt(top.z, 0)} mm height`
-    const hoseAtTop = top.hose ?? crest.find((v) => v.hose && !v.port)?.hose
+    const crest = crestOf(g, p, tol, seen)
+    if (crest.some((v) => g.vent[v] || g.open[v])) continue
+    const top = p
+    const topHose = g.kind[top] === PART_TOP || g.kind[top] === PORT ? undefined : hoseAt(ctx, g, top)
+    if (crest.length === 1 && g.start[p + 1]! - g.start[p]! <= 1 && !topHose) continue // a single blind port
+    const at = pointAt(ctx, g, top)
+    const where = `(${fmt(at.x, 0)}, ${fmt(at.y, 0)}) mm at ${fmt(g.z[top]!, 0)} mm height`
+    const routeOnCrest = crest.find((v) => g.kind[v] !== PART_TOP && g.kind[v] !== PORT)
+    const hoseAtTop = topHose ?? (routeOnCrest !== undefined ? hoseAt(ctx, g, routeOnCrest) : undefined)
     if (hoseAtTop) {
       out.push(makeFinding(ctx, 'air-trap', 'warning',
         `${capitalise(hoseName(hoseAtTop))} rises to a high point at ${where} and falls away on both sides; air collects there and nothing lets it out.`,
-        elementIdsOf(crest),
+        elementIdsOf(ctx, g, crest),
         `Fit a bleed valve (a tee with a bleed screw) in ${hoseAtTop.tag} at the high point, or re-route it so it rises steadily to a vent.`,
-        { type: 'add-bleed-valve', hoseId: hoseAtTop.hose.id, at: top.at }))
+        { type: 'add-bleed-valve', hoseId: hoseAtTop.hose.id, at }))
     } else {
-      const comp = top.comp!
-      const at = { x: comp.comp.position.x, y: comp.comp.position.y, z: comp.topZ }
-      const portText = top.port ? ` at ${portName(top.port)}` : ''
+      const comp = compAt(ctx, g, top)!
+      const topPort = portAt(ctx, g, top)
+      const partTop = { x: comp.comp.position.x, y: comp.comp.position.y, z: comp.topZ }
+      const portText = topPort ? ` at ${portName(topPort)}` : ''
       out.push(makeFinding(ctx, 'air-trap', 'warning',
-        `${comp.comp.label} is a high point${portText} (${fmt(top.z, 0)} mm): the hoses either side run lower, so air collects in it and nothing lets it out.`,
-        elementIdsOf(crest),
+        `${comp.comp.label} is a high point${portText} (${fmt(g.z[top]!, 0)} mm): the hoses either side run lower, so air collects in it and nothing lets it out.`,
+        elementIdsOf(ctx, g, crest),
         `Fit a bleed screw at the top of ${comp.comp.label}, or run a vent line from its top up to the expansion tank.`,
-        { type: 'add-vent-port', componentId: comp.comp.id, at }))
+        { type: 'add-vent-port', componentId: comp.comp.id, at: partTop }))
     }
   }
   return out
@@ -169,25 +143,33 @@ export const fillNotHighest: Check = (ctx) => {
   if (ctx.doc.circuit.kind !== 'coolant') return []
   const g = heightGraphOf(ctx)
   const tol = ctx.thresholds.airTrapToleranceMm
-  let fill: HeightVertex | null = null
-  for (const v of g.vertices) {
-    const isFill = (v.comp && !v.port && FILL_TYPES.has(v.comp.comp.type)) || v.port?.port.role === 'fill'
-    if (isFill && (!fill || v.z > fill.z)) fill = v
+  const n = g.z.length
+  let fill = -1
+  for (let v = 0; v < n; v++) {
+    const isFill = g.kind[v] === PART_TOP ? FILL_TYPES.has(compAt(ctx, g, v)!.comp.type) : g.kind[v] === PORT && portAt(ctx, g, v)!.port.role === 'fill'
+    if (isFill && (fill < 0 || g.z[v]! > g.z[fill]!)) fill = v
   }
-  if (!fill) return []
-  const fillComp = fill.comp!
-  const above = g.vertices.filter((v) => v.z > fill.z + tol && v.comp !== fillComp)
+  if (fill < 0) return []
+  const fillComp = compAt(ctx, g, fill)!
+  const fillZ = g.z[fill]!
+  const above: number[] = []
+  for (let v = 0; v < n; v++) if (g.z[v]! > fillZ + tol && compAt(ctx, g, v) !== fillComp) above.push(v)
   if (above.length === 0) return []
-  const highest = above.reduce((a, b) => (b.z > a.z ? b : a))
-  const name = highest.port ? portName(highest.port) : highest.hose ? hoseName(highest.hose) : highest.comp!.comp.label
-  const rise = Math.ceil((highest.z - fill.z + tol) / 10) * 10
-  const others = new Set(above.map((v) => v.hose?.tag ?? v.comp?.comp.label ?? ''))
+  let highest = above[0]!
+  for (const v of above) if (g.z[v]! > g.z[highest]!) highest = v
+  const highestPort = portAt(ctx, g, highest)
+  const highestHose = hoseAt(ctx, g, highest)
+  const highestComp = compAt(ctx, g, highest)
+  const name = highestPort ? portName(highestPort) : highestHose ? hoseName(highestHose) : highestComp!.comp.label
+  const rise = Math.ceil((g.z[highest]! - fillZ + tol) / 10) * 10
+  const others = new Set(above.map((v) => hoseAt(ctx, g, v)?.tag ?? compAt(ctx, g, v)?.comp.label ?? ''))
+  const highestName = highestHose?.tag ?? highestComp?.comp.label
   return [
     makeFinding(ctx, 'fill-not-highest', 'warning',
-      `${capitalise(name)} is at ${fmt(highest.z, 0)} mm, ${fmt(highest.z - fill.z, 0)} mm above the filler on ${fillComp.comp.label} (${fmt(fill.z, 0)} mm)` +
-        `${others.size > 1 ? `; also above it: ${[...others].filter((o) => o !== (highest.hose?.tag ?? highest.comp?.comp.label)).join(', ')}` : ''}. ` +
+      `${capitalise(name)} is at ${fmt(g.z[highest]!, 0)} mm, ${fmt(g.z[highest]! - fillZ, 0)} mm above the filler on ${fillComp.comp.label} (${fmt(fillZ, 0)} mm)` +
+        `${others.size > 1 ? `; also above it: ${[...others].filter((o) => o !== highestName).join(', ')}` : ''}. ` +
         'The circuit cannot be filled to the top from the filler, and air will stay above it.',
-      [...elementIdsOf(above), fillComp.comp.id],
+      [...elementIdsOf(ctx, g, above), fillComp.comp.id],
       `Raise ${fillComp.comp.label} by at least ${fmt(rise, 0)} mm so its filler is the highest point, or lower the parts above it.`,
       { type: 'raise-component', componentId: fillComp.comp.id, z: fillComp.comp.position.z + rise }),
   ]

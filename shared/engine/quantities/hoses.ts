@@ -44,8 +44,11 @@ export function hoseLines(ctx: AnalysisContext): HoseLine[] {
 
 export function hoseTotals(lines: HoseLine[]): HoseTotal[] {
   const groups = new Map<string, HoseLine[]>()
+  const boreTexts = new Map<number, string>()
   for (const l of lines) {
-    const key = `${l.material}|${l.insideDiameterMm.toFixed(2)}`
+    let bore = boreTexts.get(l.insideDiameterMm)
+    if (bore === undefined) { bore = l.insideDiameterMm.toFixed(2); boreTexts.set(l.insideDiameterMm, bore) }
+    const key = `${l.material}|${bore}`
     const list = groups.get(key)
     if (list) list.push(l)
     else groups.set(key, [l])

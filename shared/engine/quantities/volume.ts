@@ -11,13 +11,27 @@ export function boreVolumeL(insideDiameterMm: number, lengthMm: number): number 
 }
 
 export function systemVolume(ctx: AnalysisContext): { totalL: number; parts: VolumeShare[] } {
-  const parts: Array<Omit<VolumeShare, 'share'>> = []
-  for (const c of ctx.model.components) parts.push({ elementId: c.comp.id, name: c.comp.label, volumeL: c.comp.volumeL })
-  for (const h of ctx.model.hoses) {
-    parts.push({ elementId: h.hose.id, name: hoseName(h), volumeL: boreVolumeL(h.hose.insideDiameterMm, h.lengthMm) })
+  const { components, hoses } = ctx.model
+  const volumes = new Float64Array(components.length + hoses.length)
+  let totalL = 0
+  for (let i = 0; i < components.length; i++) { volumes[i] = components[i]!.comp.volumeL; totalL += volumes[i]! }
+  for (let i = 0; i < hoses.length; i++) {
+    const h = hoses[i]!
+    const v = boreVolumeL(h.hose.insideDiameterMm, h.lengthMm)
+    volumes[components.length + i] = v
+    totalL += v
   }
-  const totalL = parts.reduce((s, p) => s + p.volumeL, 0)
-  return { totalL, parts: parts.map((p) => ({ ...p, share: totalL > 0 ? p.volumeL / totalL : 0 })) }
+  const parts: VolumeShare[] = new Array(volumes.length)
+  for (let i = 0; i < components.length; i++) {
+    const c = components[i]!.comp
+    parts[i] = { elementId: c.id, name: c.label, volumeL: volumes[i]!, share: totalL > 0 ? volumes[i]! / totalL : 0 }
+  }
+  for (let i = 0; i < hoses.length; i++) {
+    const h = hoses[i]!
+    const v = volumes[components.length + i]!
+    parts[components.length + i] = { elementId: h.hose.id, name: hoseName(h), volumeL: v, share: totalL > 0 ? v / totalL : 0 }
+  }
+  return { totalL, parts }
 }
 
 /** Temperature at which the workshop fills: the density there sets the cold level. */

@@ -2,8 +2,11 @@
 // This file turns a NetworkLink into its law's constants; link-table.ts evaluates h(Q) and dh/dQ.
 
 import type { FrictionPoint } from '../friction'
-import { STANDARD_GRAVITY as G } from '../units'
+import { STANDARD_GRAVITY } from '../units'
 import type { NetworkLink } from '../types'
+
+// a local copy: a module binding can cost a getter call per use in some module loaders
+const G = STANDARD_GRAVITY
 
 /**
  * Below this flow a quadratic law (fittings, lumped resistances) is continued linearly through zero

@@ -2,10 +2,14 @@
 // can carry a defined flow, head-connected groups, fixed heads, the numbering of unknown heads and
 // the sparsity pattern of the node matrix.
 
-import { STANDARD_GRAVITY as G } from '../units'
+import { STANDARD_GRAVITY } from '../units'
 import type { Network, NetworkProblem } from '../types'
 import { linkLaw, type LinkLaw } from './link-models'
+import { takeInts, takeReals } from './scratch'
 import { pumpsWithoutReturnPath, UnionFind, type FixedFlowLink } from './topology'
+
+// a local copy: a module binding can cost a getter call per use in some module loaders
+const G = STANDARD_GRAVITY
 
 export interface PreparedNetwork {
   laws: Array<LinkLaw | null>
@@ -36,12 +40,13 @@ export interface PreparedNetwork {
   problems: NetworkProblem[]
 }
 
+/** Its typed arrays are in the scratch space (scratch.ts): the caller holds a mark and releases it. */
 export function prepareNetwork(network: Network): PreparedNetwork {
   const { densityKgM3: rho, viscosityPaS: mu } = network.fluid
   const problems: NetworkProblem[] = []
   const nodeCount = network.nodes.length
   const nodeIndex = new Map<string, number>()
-  const elevation = new Float64Array(nodeCount)
+  const elevation = takeReals(nodeCount)
   network.nodes.forEach((n, i) => {
     nodeIndex.set(n.id, i)
     elevation[i] = Number.isFinite(n.elevationM) ? n.elevationM : 0
@@ -50,8 +55,8 @@ export function prepareNetwork(network: Network): PreparedNetwork {
   // Link laws; links that cannot carry a defined flow are reported and left out.
   const linkCount = network.links.length
   const laws: Array<LinkLaw | null> = new Array(linkCount).fill(null)
-  const from = new Int32Array(linkCount).fill(-1)
-  const to = new Int32Array(linkCount).fill(-1)
+  const from = takeInts(linkCount).fill(-1)
+  const to = takeInts(linkCount).fill(-1)
   const invalid: string[] = []
   const invalidReasons: string[] = []
   const adjusted: Array<[string, string]> = []
@@ -82,7 +87,7 @@ export function prepareNetwork(network: Network): PreparedNetwork {
     if (law.kind === 'fixed-flow') fixedFlows.push({ index: i, from: from[i]!, to: to[i]!, flow: law.flow })
     else groups.union(from[i]!, to[i]!)
   }
-  const componentOf = new Int32Array(nodeCount)
+  const componentOf = takeInts(nodeCount)
   for (let v = 0; v < nodeCount; v++) componentOf[v] = groups.find(v)
 
   const switchedOff = pumpsWithoutReturnPath(componentOf, fixedFlows)
@@ -102,7 +107,7 @@ export function prepareNetwork(network: Network): PreparedNetwork {
     problems.push({ kind: 'no-reference', ids: [network.referenceNode], message: `reference node ${network.referenceNode} is not in the network` })
   }
   const refComponent = refIndex === undefined ? -1 : componentOf[refIndex]!
-  const fixedHead = new Float64Array(nodeCount).fill(Number.NaN)
+  const fixedHead = takeReals(nodeCount).fill(Number.NaN)
   const datumOf = new Map<number, number>()
   let referenceHead = 0
   if (refIndex !== undefined) {
@@ -127,15 +132,15 @@ export function prepareNetwork(network: Network): PreparedNetwork {
     })
   }
 
-  const unknown = new Int32Array(nodeCount).fill(-1)
+  const unknown = takeInts(nodeCount).fill(-1)
   let unknownCount = 0
   for (let v = 0; v < nodeCount; v++) if (Number.isNaN(fixedHead[v]!)) unknown[v] = unknownCount++
 
   const solvedLinks: number[] = []
-  const edgeI = new Int32Array(linkCount)
-  const edgeJ = new Int32Array(linkCount)
+  const edgeI = takeInts(linkCount)
+  const edgeJ = takeInts(linkCount)
   let edgeCount = 0
-  const edgeOfLink = new Int32Array(linkCount).fill(-1)
+  const edgeOfLink = takeInts(linkCount).fill(-1)
   for (let i = 0; i < linkCount; i++) {
     const law = laws[i]
     if (!law || law.kind === 'fixed-flow') continue
@@ -157,7 +162,7 @@ export function prepareNetwork(network: Network): PreparedNetwork {
 
 /** Starting flows: 1 m/s in every bore (as EPANET starts at 1 ft/s), the stated flow of fixed pumps. */
 export function initialFlows(prepared: PreparedNetwork): Float64Array {
-  const flows = new Float64Array(prepared.laws.length)
+  const flows = takeReals(prepared.laws.length)
   prepared.laws.forEach((law, i) => {
     if (!law) return
     switch (law.kind) {

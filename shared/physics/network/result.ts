@@ -1,13 +1,18 @@
 // Turns the solver's arrays into the NetworkResult of the physics contract (L/min, kPa).
 
-import { STANDARD_GRAVITY as G } from '../units'
+import { STANDARD_GRAVITY } from '../units'
 import type { LinkResult, Network, NetworkResult } from '../types'
 import type { LinkTable } from './link-table'
 import type { PreparedNetwork } from './prepare'
+import { takeInts, takeReals } from './scratch'
+
+// a local copy: a module binding can cost a getter call per use in some module loaders
+const G = STANDARD_GRAVITY
 
 export function buildResult(
   network: Network,
   prep: PreparedNetwork,
+  /** evaluated at the final flows, by position in prep.solvedLinks */
   table: LinkTable,
   flows: Float64Array,
   /** heads relative to the reference head, every node */
@@ -21,7 +26,7 @@ export function buildResult(
   const kpaPerMetre = (rho * G) / 1000
   // gauge pressure from the head above the reference head: p = ρg·(H − z)
   const nodeCount = network.nodes.length
-  const pressure = new Float64Array(nodeCount)
+  const pressure = takeReals(nodeCount)
   for (let v = 0; v < nodeCount; v++) pressure[v] = (prep.referenceHead + head[v]! - elevation[v]!) * kpaPerMetre
   const nodePressureKpa: Record<string, number> = {}
   for (let v = 0; v < nodeCount; v++) {
@@ -29,32 +34,42 @@ export function buildResult(
   }
   const linkCount = network.links.length
   const links: LinkResult[] = new Array(linkCount)
-  const h = table.h
+  const { h, friction } = table
+  const positionOf = takeInts(linkCount).fill(-1)
+  const solved = prep.solvedLinks
+  for (let k = 0; k < solved.length; k++) positionOf[solved[k]!] = k
   for (let i = 0; i < linkCount; i++) {
     const law = laws[i]
+    const id = network.links[i]!.id
+    if (!law) {
+      links[i] = { id, flowLpm: 0, velocityMS: null, reynolds: null, frictionFactor: null, dropKpa: 0, headLossKpa: 0 }
+      continue
+    }
     const q = flows[i]!
-    const result: LinkResult = { id: network.links[i]!.id, flowLpm: law ? q * 60000 : 0, velocityMS: null, reynolds: null, frictionFactor: null, dropKpa: 0, headLossKpa: 0 }
-    links[i] = result
-    if (!law) continue
     const a = from[i]!
     const b = to[i]!
     // p_from − p_to; defined even in a group without a pressure level, since only differences enter
-    result.dropKpa = pressure[a]! - pressure[b]!
-    if (law.kind === 'fixed-flow') {
-      result.headLossKpa = (head[a]! - head[b]!) * kpaPerMetre
-      continue
+    const dropKpa = pressure[a]! - pressure[b]!
+    const k = positionOf[i]!
+    // each result is made once with its final values, so that all share one object shape
+    let velocityMS: number | null = null
+    let reynolds: number | null = null
+    let frictionFactor: number | null = null
+    let headLossKpa: number
+    if (law.kind === 'fixed-flow') headLossKpa = (head[a]! - head[b]!) * kpaPerMetre
+    else {
+      headLossKpa = h[k]! * kpaPerMetre
+      if (law.kind === 'pipe') {
+        const f = friction[k]!
+        velocityMS = q / law.area
+        reynolds = table.reynolds(k, q)
+        frictionFactor = Number.isFinite(f) ? f : null
+      } else if (law.kind === 'quadratic' && law.diameterM) {
+        velocityMS = table.velocity(k, q)!
+        reynolds = (Math.abs(velocityMS) * law.diameterM) / nu
+      }
     }
-    result.headLossKpa = h[i]! * kpaPerMetre
-    if (law.kind === 'pipe') {
-      const f = table.friction[i]!
-      result.velocityMS = table.velocity(i, q)
-      result.reynolds = table.reynolds(i, q)
-      result.frictionFactor = Number.isFinite(f) ? f : null
-    } else if (law.kind === 'quadratic' && law.diameterM) {
-      const v = table.velocity(i, q)!
-      result.velocityMS = v
-      result.reynolds = (Math.abs(v) * law.diameterM) / nu
-    }
+    links[i] = { id, flowLpm: q * 60000, velocityMS, reynolds, frictionFactor, dropKpa, headLossKpa }
   }
   const isolatedNodes = [...prep.isolatedNodes, ...prep.invalid, ...[...prep.switchedOff].map(i => network.links[i]!.id)]
   const blocking = problems.some(p => p.kind === 'no-return-path' || p.kind === 'no-reference')

@@ -9,12 +9,14 @@
 // walking the tree from the non-zeros of each row of A.
 
 import { minimumDegreeOrder } from './minimum-degree'
+import { scratchMark, scratchRelease, takeInts, takeReals } from './scratch'
 
 export class SparseSpdSolver {
   readonly n: number
   /** values of the permuted upper triangle in column-compressed order; fill through the index maps */
   readonly values: Float64Array
   private readonly perm: Int32Array
+  private readonly pinv: Int32Array
   private readonly ap: Int32Array
   private readonly ai: Int32Array
   private readonly diagonalPosition: Int32Array
@@ -23,6 +25,8 @@ export class SparseSpdSolver {
   private readonly li: Int32Array
   private readonly lx: Float64Array
   private readonly d: Float64Array
+  /** 1/d, so that the factorisation's inner loop multiplies instead of divides */
+  private readonly invD: Float64Array
   private readonly y: Float64Array
   private readonly rowStart: Int32Array
   private readonly rowPattern: Int32Array
@@ -31,44 +35,56 @@ export class SparseSpdSolver {
 
   /**
    * Off-diagonal entry k joins vertices edgeI[k] and edgeJ[k]; duplicates share a position and
-   * i = j is ignored.
+   * i = j is ignored. With `inScratch` the solver's arrays are taken from the scratch space
+   * (scratch.ts): for a caller that releases it only when done with the solver.
    */
-  constructor(n: number, edgeI: Int32Array, edgeJ: Int32Array) {
+  constructor(n: number, edgeI: Int32Array, edgeJ: Int32Array, inScratch = false) {
     // (locals throughout: the loops run before the object has its final shape)
     this.n = n
     const edgeCount = edgeI.length
+    const mark = scratchMark()
     // neighbours in compressed rows, duplicates and self-loops dropped
-    const start = new Int32Array(n + 1)
+    const start = takeInts(n + 1)
+    const end = takeInts(n)
     for (let k = 0; k < edgeCount; k++) {
       if (edgeI[k] === edgeJ[k]) continue
       start[edgeI[k]! + 1]! += 1
       start[edgeJ[k]! + 1]! += 1
     }
     for (let v = 0; v < n; v++) start[v + 1]! += start[v]!
-    const end = start.slice(0, n)
-    const adjacent = new Int32Array(start[n]!)
+    end.set(start.subarray(0, n))
+    const adjacent = takeInts(start[n]!)
     for (let k = 0; k < edgeCount; k++) {
       const i = edgeI[k]!
       const j = edgeJ[k]!
       if (i === j) continue
-      let seen = false
-      for (let p = start[i]!; p < end[i]!; p++) if (adjacent[p] === j) seen = true
+      let seen = false // a repeated pair: the rows are short, a scan will do
+      for (let p = start[i]!; p < end[i]!; p++) {
+        if (adjacent[p] === j) {
+          seen = true
+          break
+        }
+      }
       if (seen) continue
       adjacent[end[i]!++] = j
       adjacent[end[j]!++] = i
     }
-    const lists: number[][] = new Array(n)
+    // close the gaps left by repeated pairs, so that each row is exactly its neighbours
+    let packed = 0
     for (let v = 0; v < n; v++) {
-      const list: number[] = []
-      for (let p = start[v]!; p < end[v]!; p++) list.push(adjacent[p]!)
-      lists[v] = list
+      const from = start[v]!
+      const to = end[v]!
+      start[v] = packed
+      for (let p = from; p < to; p++) adjacent[packed++] = adjacent[p]!
     }
-    const perm = minimumDegreeOrder(n, lists)
-    const pinv = new Int32Array(n)
+    start[n] = packed
+    end.set(start.subarray(1, n + 1))
+    const perm = minimumDegreeOrder(n, start, adjacent, takeInts(n))
+    const pinv = takeInts(n)
     for (let k = 0; k < n; k++) pinv[perm[k]!] = k
 
     // Upper triangle of P·A·Pᵀ by columns: column c holds rows r < c, then the diagonal.
-    const ap = new Int32Array(n + 1)
+    const ap = takeInts(n + 1)
     for (let v = 0; v < n; v++) {
       const c = pinv[v]!
       let count = 1
@@ -76,8 +92,9 @@ export class SparseSpdSolver {
       ap[c + 1] = count
     }
     for (let c = 0; c < n; c++) ap[c + 1]! += ap[c]!
-    const ai = new Int32Array(ap[n]!)
-    const diagonalPosition = new Int32Array(n)
+    const entries = ap[n]!
+    const ai = takeInts(entries)
+    const diagonalPosition = takeInts(n)
     for (let v = 0; v < n; v++) {
       const c = pinv[v]!
       let p = ap[c]!
@@ -88,7 +105,41 @@ export class SparseSpdSolver {
       ai[p] = c
       diagonalPosition[v] = p
     }
-    const edgePosition = new Int32Array(edgeCount)
+
+    // Symbolic factorisation: elimination tree and column counts of L.
+    const parent = takeInts(n)
+    const flag = takeInts(n)
+    const lnz = takeInts(n)
+    for (let k = 0; k < n; k++) {
+      parent[k] = -1
+      flag[k] = k
+      for (let p = ap[k]!; p < ap[k + 1]!; p++) {
+        for (let i = ai[p]!; i < k && flag[i] !== k; i = parent[i]!) {
+          if (parent[i] === -1) parent[i] = k
+          lnz[i]! += 1
+          flag[i] = k
+        }
+      }
+    }
+    let nonZeros = 0
+    for (let k = 0; k < n; k++) nonZeros += lnz[k]!
+
+    // What the factorisation keeps: one buffer of integers, one of reals.
+    const keptSize = 4 * n + (n + 1) * 3 + entries + edgeCount + 2 * nonZeros
+    const kept = inScratch ? takeInts(keptSize) : new Int32Array(keptSize)
+    let at = 0
+    const keep = (size: number) => kept.subarray(at, (at += size))
+    this.perm = keep(n)
+    this.perm.set(perm)
+    this.pinv = keep(n)
+    this.pinv.set(pinv)
+    this.ap = keep(n + 1)
+    this.ap.set(ap)
+    this.ai = keep(entries)
+    this.ai.set(ai)
+    this.diagonalPosition = keep(n)
+    this.diagonalPosition.set(diagonalPosition)
+    const edgePosition = keep(edgeCount)
     for (let k = 0; k < edgeCount; k++) {
       const i = edgeI[k]!
       const j = edgeJ[k]!
@@ -104,31 +155,16 @@ export class SparseSpdSolver {
       while (ai[p] !== r) p++
       edgePosition[k] = p
     }
-
-    // Symbolic factorisation: elimination tree and column counts of L.
-    const parent = new Int32Array(n)
-    const flag = new Int32Array(n)
-    const lnz = new Int32Array(n)
-    for (let k = 0; k < n; k++) {
-      parent[k] = -1
-      flag[k] = k
-      for (let p = ap[k]!; p < ap[k + 1]!; p++) {
-        for (let i = ai[p]!; i < k && flag[i] !== k; i = parent[i]!) {
-          if (parent[i] === -1) parent[i] = k
-          lnz[i]! += 1
-          flag[i] = k
-        }
-      }
-    }
-    const lp = new Int32Array(n + 1)
+    this.edgePosition = edgePosition
+    const lp = keep(n + 1)
     for (let k = 0; k < n; k++) lp[k + 1] = lp[k]! + lnz[k]!
     // Row patterns of L (Davis' ereach from the non-zeros of each row of A) and the row indices of
     // each column of L, in the order the numeric factorisation fills them.
-    const li = new Int32Array(lp[n]!)
-    const rowStart = new Int32Array(n + 1)
-    const rowPattern = new Int32Array(lp[n]!)
-    const fillAt = new Int32Array(n)
-    const pattern = new Int32Array(n)
+    const li = keep(nonZeros)
+    const rowStart = keep(n + 1)
+    const rowPattern = keep(nonZeros)
+    const fillAt = keep(n)
+    const pattern = lnz // free again
     flag.fill(-1)
     for (let k = 0; k < n; k++) fillAt[k] = lp[k]!
     let count = 0
@@ -152,22 +188,20 @@ export class SparseSpdSolver {
       }
     }
     rowStart[n] = count
+    if (!inScratch) scratchRelease(mark)
 
-    this.perm = perm
-    this.ap = ap
-    this.ai = ai
-    this.values = new Float64Array(ap[n]!)
-    this.diagonalPosition = diagonalPosition
-    this.edgePosition = edgePosition
+    const reals = inScratch ? takeReals(entries + nonZeros + 4 * n) : new Float64Array(entries + nonZeros + 4 * n)
+    this.values = reals.subarray(0, entries)
     this.lp = lp
     this.li = li
-    this.lx = new Float64Array(lp[n]!)
+    this.lx = reals.subarray(entries, entries + nonZeros)
     this.rowStart = rowStart
     this.rowPattern = rowPattern
     this.fillAt = fillAt
-    this.d = new Float64Array(n)
-    this.y = new Float64Array(n)
-    this.work = new Float64Array(n)
+    this.d = reals.subarray(entries + nonZeros, entries + nonZeros + n)
+    this.y = reals.subarray(entries + nonZeros + n, entries + nonZeros + 2 * n)
+    this.work = reals.subarray(entries + nonZeros + 2 * n, entries + nonZeros + 3 * n)
+    this.invD = reals.subarray(entries + nonZeros + 3 * n, entries + nonZeros + 4 * n)
   }
 
   /** Non-zeros of L, a measure of fill. */
@@ -204,8 +238,8 @@ export class SparseSpdSolver {
    * is final before it is used (the elimination-tree order of Davis' up-looking method).
    */
   factor(): boolean {
-    const { n, ap, ai, values, lp, li, lx, d, y, rowStart, rowPattern, fillAt } = this
-    for (let k = 0; k < n; k++) fillAt[k] = lp[k]!
+    const { n, ap, ai, values, lp, li, lx, d, invD, y, rowStart, rowPattern, fillAt } = this
+    fillAt.set(lp.subarray(0, n))
     for (let k = 0; k < n; k++) {
       for (let p = ap[k]!; p < ap[k + 1]!; p++) y[ai[p]!]! += values[p]!
       let dk = y[k]!
@@ -216,12 +250,13 @@ export class SparseSpdSolver {
         y[i] = 0
         const end = fillAt[i]!
         for (let p = lp[i]!; p < end; p++) y[li[p]!]! -= lx[p]! * yi
-        const lki = yi / d[i]!
+        const lki = yi * invD[i]!
         dk -= lki * yi
         lx[end] = lki
         fillAt[i] = end + 1
       }
       d[k] = dk
+      invD[k] = 1 / dk
       if (!(dk > 0)) {
         y.fill(0)
         return false
@@ -230,20 +265,32 @@ export class SparseSpdSolver {
     return true
   }
 
+  /** Position of a vertex in the elimination order: solvePermuted takes and gives vectors in this order. */
+  permutedIndex(vertex: number): number {
+    return this.pinv[vertex]!
+  }
+
+  /** Solves A·x = b with b and x in elimination order (see permutedIndex); x may be b. */
+  solvePermuted(b: Float64Array, x: Float64Array): void {
+    const { n, lp, li, lx, invD } = this
+    if (x !== b) x.set(b.subarray(0, n))
+    for (let j = 0; j < n; j++) {
+      const xj = x[j]!
+      for (let p = lp[j]!; p < lp[j + 1]!; p++) x[li[p]!]! -= lx[p]! * xj
+    }
+    for (let j = 0; j < n; j++) x[j]! *= invD[j]!
+    for (let j = n - 1; j >= 0; j--) {
+      let s = x[j]!
+      for (let p = lp[j]!; p < lp[j + 1]!; p++) s -= lx[p]! * x[li[p]!]!
+      x[j] = s
+    }
+  }
+
   /** Solves A·x = b with the last factorisation; b and x are in the caller's vertex numbering. */
   solve(b: Float64Array, x: Float64Array): void {
-    const { n, perm, lp, li, lx, d, work } = this
+    const { n, perm, work } = this
     for (let k = 0; k < n; k++) work[k] = b[perm[k]!]!
-    for (let j = 0; j < n; j++) {
-      const wj = work[j]!
-      for (let p = lp[j]!; p < lp[j + 1]!; p++) work[li[p]!]! -= lx[p]! * wj
-    }
-    for (let j = 0; j < n; j++) work[j]! /= d[j]!
-    for (let j = n - 1; j >= 0; j--) {
-      let s = work[j]!
-      for (let p = lp[j]!; p < lp[j + 1]!; p++) s -= lx[p]! * work[li[p]!]!
-      work[j] = s
-    }
+    this.solvePermuted(work, work)
     for (let k = 0; k < n; k++) x[perm[k]!] = work[k]!
   }
 }

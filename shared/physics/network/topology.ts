@@ -1,9 +1,12 @@
 // Connectivity checks that decide what the solver can meaningfully compute.
 
+import { scratchMark, scratchRelease, takeInts, takeReals } from './scratch'
+
 export class UnionFind {
   private parent: Int32Array
+  /** in the scratch space (scratch.ts) */
   constructor(n: number) {
-    this.parent = new Int32Array(n)
+    this.parent = takeInts(n)
     for (let i = 0; i < n; i++) this.parent[i] = i
   }
   find(i: number): number {
@@ -80,8 +83,9 @@ export function largestImbalance(
   fixedFlows: readonly FixedFlowLink[],
   flows: Float64Array,
 ): number {
-  const net = new Float64Array(nodeCount)
-  const through = new Float64Array(nodeCount)
+  const mark = scratchMark()
+  const net = takeReals(nodeCount)
+  const through = takeReals(nodeCount)
   let largest = 0
   const count = links.length + fixedFlows.length
   for (let k = 0; k < count; k++) {
@@ -101,6 +105,7 @@ export function largestImbalance(
     const e = Math.abs(net[v]!) / Math.max(through[v]!, largest, 1e-300)
     if (e > worst) worst = e
   }
+  scratchRelease(mark)
   return worst
 }
 
@@ -122,11 +127,12 @@ export function balanceOnSpanningForest(
   flows: Float64Array,
 ): void {
   // Kruskal on decreasing weight (ties: equal laws, where either choice is the same to rounding)
+  const mark = scratchMark()
   const order = Int32Array.from(solvedLinks.filter(i => from[i] !== to[i]))
   order.sort((a, b) => weight[b]! - weight[a]! || a - b)
   const forest = new UnionFind(nodeCount)
-  const inTree = new Uint8Array(flows.length)
-  const treeDegree = new Int32Array(nodeCount + 1)
+  const inTree = takeInts(flows.length)
+  const treeDegree = takeInts(nodeCount + 1)
   for (const i of order) {
     const a = from[i]!
     const b = to[i]!
@@ -140,10 +146,11 @@ export function balanceOnSpanningForest(
   }
   // tree links by node, compressed rows
   for (let v = 0; v < nodeCount; v++) treeDegree[v + 1]! += treeDegree[v]!
-  const fill = treeDegree.slice(0, nodeCount)
-  const treeLinks = new Int32Array(treeDegree[nodeCount]!)
+  const fill = takeInts(nodeCount)
+  fill.set(treeDegree.subarray(0, nodeCount))
+  const treeLinks = takeInts(treeDegree[nodeCount]!)
   // net inflow at each node from everything that is not a tree link
-  const balance = new Float64Array(nodeCount)
+  const balance = takeReals(nodeCount)
   for (const i of solvedLinks) {
     if (inTree[i]) {
       treeLinks[fill[from[i]!]!++] = i
@@ -158,9 +165,9 @@ export function balanceOnSpanningForest(
     balance[p.to]! += flows[p.index]!
   }
   // breadth-first order from each root, then settle the tree links from the leaves up
-  const visited = new Uint8Array(nodeCount)
-  const parentLink = new Int32Array(nodeCount).fill(-1)
-  const sequence = new Int32Array(nodeCount)
+  const visited = takeInts(nodeCount)
+  const parentLink = takeInts(nodeCount).fill(-1)
+  const sequence = takeInts(nodeCount)
   let length = 0
   for (const root of roots) {
     if (visited[root]) continue
@@ -192,4 +199,5 @@ export function balanceOnSpanningForest(
     }
     balance[v] = 0
   }
+  scratchRelease(mark)
 }

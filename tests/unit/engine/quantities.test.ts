@@ -1,6 +1,8 @@
 // Shopping-list and volume figures against hand-worked examples.
 import { describe, expect, it } from 'vitest'
+import fc from 'fast-check'
 import { analyzeCircuit, boreVolumeL, cutLengthMm, wormDriveClampFor } from '#shared/engine'
+import { naturalCompare } from '#shared/engine/quantities/parts'
 import { correctedDemoDocument } from '#shared/demo'
 import type { CircuitDocument } from '#shared/circuit'
 import { hose, port, pt, soundLoop, valid } from './fixtures'
@@ -136,5 +138,32 @@ describe('coolant volume and mix', () => {
     s.mix = { fluid: 'water', percentByVolume: 0 }
     s.capRatingKpa = (15 * 6894.757293168) / 1000
     expect(analyzeCircuit(valid(d)).quantities.coolant!.boilingPointC).toBeCloseTo(120.95, 1)
+  })
+})
+
+describe('shopping-list order', () => {
+  // The reference: split each text into text and number parts, compare part by part (numbers by value,
+  // then as written), fewer parts first — the order the lists have always used.
+  const reference = (a: string, b: string): number => {
+    const pa = a.split(/(\d+(?:\.\d+)?)/)
+    const pb = b.split(/(\d+(?:\.\d+)?)/)
+    for (let i = 0; i < Math.min(pa.length, pb.length); i++) {
+      const x = pa[i]!, y = pb[i]!
+      if (x === y) continue
+      if (i % 2 === 1) return Number(x) - Number(y) || (x < y ? -1 : 1)
+      return x < y ? -1 : 1
+    }
+    return pa.length - pb.length
+  }
+  it('naturalCompare orders like the part-by-part comparison, on any texts', () => {
+    const text = fc.string({ unit: fc.constantFrom('0', '1', '2', '8', '9', '.', 'a', 'b', ' ', '(', '›', 'S'), maxLength: 12 })
+    fc.assert(fc.property(text, text, (a, b) => {
+      expect(Math.sign(naturalCompare(a, b))).toBe(Math.sign(reference(a, b)))
+    }), { numRuns: 5000 })
+  })
+  it('numbers sort by value: SAE 6 before SAE 12, 8 mm before 15.88 mm', () => {
+    expect(naturalCompare('SAE 6 (8–22 mm)', 'SAE 12 (17–32 mm)')).toBeLessThan(0)
+    expect(naturalCompare('for 8 mm spigot', 'for 15.88 mm spigot')).toBeLessThan(0)
+    expect(naturalCompare('Supply tee 2 › bleed screw', 'Supply tee 10 › bleed screw')).toBeLessThan(0)
   })
 })

@@ -95,6 +95,20 @@ describe('network solver properties', () => {
     }), { numRuns: 1000 })
   })
 
+  it('stopping at EPANET-level convergence (flow change 1e-6) leaves the flows within 1e-6 of the converged ones', () => {
+    // the default stops once a full step changes the flows by 1e-6 of their sum; Newton converges
+    // quadratically there, so the flows must agree with a solve run to the rounding floor
+    fc.assert(fc.property(networks, ({ seed, n, chords, pump }) => {
+      const net = randomNetwork(seed, n, chords, pump)
+      const fast = solveNetwork(net)
+      const tight = solveNetwork(net, { relativeTolerance: 1e-14 })
+      expect(fast.converged && tight.converged).toBe(true)
+      const scale = Math.max(...tight.links.map(l => Math.abs(l.flowLpm)))
+      fast.links.forEach((l, i) => expect(Math.abs(l.flowLpm - tight.links[i]!.flowLpm)).toBeLessThanOrEqual(1e-6 * scale))
+      expect(fast.iterations).toBeLessThanOrEqual(tight.iterations)
+    }), { numRuns: 500 })
+  })
+
   it('a curve pump delivers forward flow with a head rise, also when its points are convex', () => {
     fc.assert(fc.property(networks, ({ seed, n, chords }) => {
       const net = randomNetwork(seed, n, chords, 'curve')
