@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # npm test: every check — typecheck, lint, unit, API integration on a real PostgreSQL, browser
-# end-to-end in headless Chromium. Each stage runs even when an earlier one failed; the exit code is
-# non-zero when any failed, and a summary line of counts ends the output.
+# end-to-end in headless Chromium, then reliability (crash, shutdown, start-up). Each stage runs even
+# when an earlier one failed; the exit code is non-zero when any failed, and a summary line of
+# counts ends the output.
 set -uo pipefail
 source "$(dirname "$0")/lib/env.sh"
 source "$HW_ROOT/scripts/lib/build.sh"
@@ -63,11 +64,21 @@ stop_server() { [ -n "$server" ] && kill -TERM "$server" 2>/dev/null && wait "$s
 trap 'stop_server; hw_fake_s3_stop; hw_fake_smtp_stop' EXIT
 
 stage build start_server
+built=""
 if [ -n "$server" ]; then
+  built=1
   export HOSEWRIGHT_TEST_URL="http://127.0.0.1:$TEST_PORT"
   stage api vitest api
   stage e2e vitest e2e
 fi
 stop_server
+
+# ── reliability: crash (kill -9), graceful shutdown, start-up checks and logs. The suite starts and
+# kills servers of the same build itself, each on a fresh database <TEST_DB>_reliability_<suite>,
+# with its own fake S3 and SMTP (docs/reliability.md).
+if [ -n "$built" ]; then
+  export HOSEWRIGHT_RELIABILITY_DATABASE_URL="$(hw_db_url "${TEST_DB}_reliability")"
+  stage reliability vitest reliability
+fi
 
 node scripts/test-summary.mjs "$RESULTS"

@@ -9,7 +9,7 @@ export function databaseReady(): Promise<void> {
   return ready
 }
 
-export default defineNitroPlugin((nitroApp) => {
+export default defineNitroPlugin(() => {
   ready = (async () => {
     if (process.env.HOSEWRIGHT_SKIP_MIGRATE !== '1') await runMigrations(databaseUrl())
     if (process.env.HOSEWRIGHT_SEED_DEMO === '1') {
@@ -20,5 +20,5 @@ export default defineNitroPlugin((nitroApp) => {
   ready.catch((error) => {
     console.error('[hosewright] database set-up failed:', error)
   })
-  nitroApp.hooks.hook('close', () => closeDb())
+  // the pool is closed by shutdown.ts, after the mail worker has stopped
 })
