@@ -1,20 +1,23 @@
 // Checks a circuit document from the command line.
 //   npm run check -- path/to/circuit.json [--format json|text]
 //   npm run check -- --demo [corrected]     prints the demo circuit document (used for docs/exchange-format.md)
+//   npm run check -- --demo fuel [corrected] prints the demo's fuel conversion
 // Exit status: 0 no error finding, 1 at least one error finding, 2 the document is not valid (or unreadable).
 import { readFileSync } from 'node:fs'
 import { formatIssues, parseCircuitDocument } from '../shared/circuit'
-import { correctedDemoDocument, demoDocument } from '../shared/demo'
+import { correctedDemoDocument, correctedFuelDemoDocument, demoDocument, fuelDemoDocument } from '../shared/demo'
 import { analyzeCircuit, formatReportText } from '../shared/engine'
 
 function usage(): never {
-  process.stderr.write('Usage: npm run check -- <circuit.json> [--format json|text]   |   npm run check -- --demo [corrected]\n')
+  process.stderr.write('Usage: npm run check -- <circuit.json> [--format json|text]   |   npm run check -- --demo [fuel] [corrected]\n')
   process.exit(2)
 }
 
 const args = process.argv.slice(2)
 if (args[0] === '--demo') {
-  const doc = args[1] === 'corrected' ? correctedDemoDocument() : demoDocument()
+  const fuel = args[1] === 'fuel'
+  const corrected = args[fuel ? 2 : 1] === 'corrected'
+  const doc = fuel ? (corrected ? correctedFuelDemoDocument() : fuelDemoDocument()) : corrected ? correctedDemoDocument() : demoDocument()
   process.stdout.write(`${JSON.stringify(doc, null, 2)}\n`)
   process.exit(0)
 }

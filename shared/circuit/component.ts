@@ -1,5 +1,9 @@
 import { z } from 'zod'
+import { fuelComponentParams, fuelComponentTypes } from './fuelParts'
 import { bounded, elementId, labelText, point3 } from './primitives'
+import { withResistance } from './resistance'
+
+export { resistance, type Resistance } from './resistance'
 
 export const portRoles = ['inlet', 'outlet', 'either', 'fill', 'vent', 'drain'] as const
 export type PortRole = (typeof portRoles)[number]
@@ -16,23 +20,14 @@ export const port = z.strictObject({
 })
 export type Port = z.infer<typeof port>
 
-/** A lumped flow resistance: K at a reference bore, or a rated pressure drop at a rated flow (drop grows with flow²). */
-export const resistance = z.union([
-  z.strictObject({ k: bounded(0, 10_000, ''), diameterMm: bounded(1, 500, 'mm') }),
-  z.strictObject({ dropKpa: bounded(0, 1000, 'kPa'), atFlowLpm: bounded(0.1, 2000, 'L/min') }),
-])
-export type Resistance = z.infer<typeof resistance>
-
 export const coolantComponentTypes = [
   'engine', 'water-pump', 'radiator', 'thermostat', 'thermostat-housing', 'pressure-cap', 'expansion-tank',
   'overflow-bottle', 'heater-core', 'heater-valve', 'bleed-valve', 'tee', 'reducer', 'blanking-plug', 'drain',
   'deaeration-pot', 'generic',
 ] as const
-/** Fuel parts join this list later; each type has its own params schema below. */
-export const componentTypes = [...coolantComponentTypes] as const
+/** Every part type; coolant parts first, then the fuel parts (shared/circuit/fuelParts.ts). Each has its own params schema below. */
+export const componentTypes = [...coolantComponentTypes, ...fuelComponentTypes] as const
 export type ComponentType = (typeof componentTypes)[number]
-
-const withResistance = { resistance: resistance.optional() }
 
 /** Per-type parameters. Adding a type means adding one entry here. */
 export const componentParams = {
@@ -68,6 +63,7 @@ export const componentParams = {
   drain: z.strictObject({ ...withResistance }),
   'deaeration-pot': z.strictObject({ ...withResistance }),
   generic: z.strictObject({ ...withResistance }),
+  ...fuelComponentParams,
 } satisfies Record<ComponentType, z.ZodType>
 
 const componentHead = {
@@ -75,7 +71,7 @@ const componentHead = {
   position: point3,
   /** rotation about the vertical z axis; turns port offsets in x/y */
   rotationDeg: bounded(-360, 360, '°'),
-  /** coolant the part holds */
+  /** liquid the part holds: coolant, or fuel in the lines and parts of a fuel circuit (a tank's own contents are not counted) */
   volumeL: bounded(0, 1000, 'L'),
 }
 const ports = z.array(port).max(64, 'A part has at most 64 ports')

@@ -1,4 +1,5 @@
 import type { CircuitDocument } from './document'
+import { fuelCrossReferenceIssues } from './fuelCrossReferences'
 
 export interface CircuitIssue {
   /** where in the document, e.g. circuit.hoses[3].to.portId */
@@ -81,5 +82,6 @@ export function crossReferenceIssues(doc: CircuitDocument): CircuitIssue[] {
       }
     })
   }
+  issues.push(...fuelCrossReferenceIssues(doc))
   return issues
 }

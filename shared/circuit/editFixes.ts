@@ -5,8 +5,8 @@ import type { FixAction } from '../engine/report'
 import type { Component } from './component'
 import type { CircuitDocument } from './document'
 import { portIndex, portWorldLookup, roundMm, roundPoint, withCircuit } from './editInternals'
-import { hoseDefaultsFor, setHoseEnd, updateHose } from './editHoses'
-import { addPortAt, placeComponent, setComponentPosition, updatePort } from './editParts'
+import { addHose, hoseDefaultsFor, setHoseEnd, updateHose } from './editHoses'
+import { addPortAt, placeComponent, setComponentPosition, updateComponent, updatePort } from './editParts'
 import { updateSettings } from './editElements'
 import { distanceMm, polylineLengthMm } from './geometry'
 import type { Hose } from './hose'
@@ -135,6 +135,17 @@ function coolantPatch(doc: CircuitDocument, change: (c: NonNullable<CircuitDocum
   return coolant ? updateSettings(doc, { coolant: change(coolant) }) : doc
 }
 
+/** A hose between two open ports, sized and classed as a freshly drawn one; nothing when either is taken or unknown. */
+function joinPorts(doc: CircuitDocument, fromPortId: string, toPortId: string, label?: string): FixResult {
+  const ports = portIndex(doc.circuit)
+  const a = ports.get(fromPortId)
+  const b = ports.get(toPortId)
+  const taken = new Set(doc.circuit.hoses.flatMap((h) => [h.from.portId, h.to.portId]))
+  if (!a || !b || fromPortId === toPortId || a.port.blocked || b.port.blocked || taken.has(fromPortId) || taken.has(toPortId)) return { doc, selectIds: [] }
+  const added = addHose(doc, fromPortId, toPortId, label ? { label } : {})
+  return { doc: added.doc, selectIds: [added.hoseId] }
+}
+
 /** Applies a fix the engine offered. Unknown ids leave the document as it is. */
 export function applyFix(doc: CircuitDocument, action: FixAction): FixResult {
   switch (action.type) {
@@ -158,5 +169,14 @@ export function applyFix(doc: CircuitDocument, action: FixAction): FixResult {
       return { doc: coolantPatch(doc, (c) => ({ ...c, capRatingKpa: action.capRatingKpa })), selectIds: [] }
     case 'set-coolant-percent':
       return { doc: coolantPatch(doc, (c) => ({ ...c, mix: { ...c.mix, percentByVolume: action.percentByVolume } })), selectIds: [] }
+    case 'join-ports':
+      return joinPorts(doc, action.fromPortId, action.toPortId, action.label)
+    case 'set-regulator-reference': {
+      const reg = doc.circuit.components.find((c) => c.id === action.componentId)
+      if (reg?.type !== 'fuel-regulator') return { doc, selectIds: [] }
+      return { doc: updateComponent(doc, reg.id, { params: { reference: action.reference } }), selectIds: [reg.id] }
+    }
+    case 'set-hose-material':
+      return { doc: updateHose(doc, action.hoseId, { material: action.material }), selectIds: [action.hoseId] }
   }
 }

@@ -31,9 +31,13 @@ export function boreForSpigots(doc: CircuitDocument, spigots: number[]): number 
   return first ?? Math.max(2, Math.min(200, spigots[0]!))
 }
 
-/** Radiator hose from 25 mm bore up, heater hose below (SAE J20 R4 and R3); fuel hose for fuel circuits. */
+/**
+ * Radiator hose from 25 mm bore up, heater hose below (SAE J20 R4 and R3). A fuel circuit gets
+ * fuel-injection hose (SAE J30 R9) with EFI clamps, rated for the pressure side and fine on the return
+ * (common practice).
+ */
 export function hoseDefaultsFor(doc: CircuitDocument, boreMm: number): { material: HoseMaterial; wallMm: number; clamp: ClampKind } {
-  if (doc.circuit.kind === 'fuel') return { material: 'j30-r9', wallMm: 3.5, clamp: 'worm-drive' }
+  if (doc.circuit.kind === 'fuel') return { material: 'j30-r9', wallMm: 3.5, clamp: 'efi-band' }
   if (boreMm >= 25) return { material: 'j20-r4-radiator', wallMm: 5, clamp: 'worm-drive' }
   return { material: 'j20-r3-heater', wallMm: boreMm < 10 ? 3.5 : 4, clamp: 'worm-drive' }
 }

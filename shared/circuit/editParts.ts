@@ -24,7 +24,7 @@ export function placeComponent(
   if (template) {
     component = componentFromTemplate(template, id, position, (local) => childId(id, local, ids))
   } else {
-    component = defaultComponent(partType, id, position, ids)
+    component = defaultComponent(partType, id, position, ids, doc.circuit.kind)
     const sameType = doc.circuit.components.filter((c) => c.type === partType).length
     if (sameType > 0) component = { ...component, label: `${PART_KINDS[partType].name} ${sameType + 1}` }
   }

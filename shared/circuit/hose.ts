@@ -1,12 +1,16 @@
 import { z } from 'zod'
 import { bounded, elementId, labelText, point3 } from './primitives'
 
-export const clampKinds = ['worm-drive', 'spring', 'constant-tension', 't-bolt', 'crimp', 'none'] as const
+/** `efi-band`: the smooth-band, rolled-edge clamp the trade uses on fuel-injection hose (common practice). */
+export const clampKinds = ['worm-drive', 'spring', 'constant-tension', 't-bolt', 'crimp', 'efi-band', 'none'] as const
 export type ClampKind = (typeof clampKinds)[number]
 
-/** SAE J20 coolant hose classes, silicone, SAE J30 fuel hose classes, and rigid tube. */
+/**
+ * SAE J20 coolant hose classes, silicone, SAE J30 fuel hose classes (R10 is the submersible in-tank
+ * class), PTFE-lined braided fuel hose, and rigid tube.
+ */
 export const hoseMaterials = [
-  'j20-r3-heater', 'j20-r4-radiator', 'silicone', 'j30-r6', 'j30-r7', 'j30-r9', 'j30-r14', 'hard-line',
+  'j20-r3-heater', 'j20-r4-radiator', 'silicone', 'j30-r6', 'j30-r7', 'j30-r9', 'j30-r14', 'hard-line', 'j30-r10', 'ptfe-lined',
 ] as const
 export type HoseMaterial = (typeof hoseMaterials)[number]
 

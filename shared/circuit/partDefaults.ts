@@ -4,20 +4,27 @@
 // maker's data. Spigots come in millimetres and in inch fractions (25.4 mm/in exactly, see
 // shared/physics/units.ts), so both appear: a 5/8 in heater spigot is 15.88 mm, a 1-1/4 in one 31.75 mm.
 import { MM_PER_INCH } from '../physics/units'
-import type { Component, ComponentType, Port, PortRole } from './component'
+import { coolantComponentTypes, type Component, type ComponentType, type Port, type PortRole } from './component'
+import type { CircuitKindName } from './document'
+import { FUEL_FITTING_PORTS, FUEL_PART_KINDS, FUEL_SHARED_FITTINGS, fuelDefaultParams } from './fuelPartDefaults'
+import { fuelComponentTypes, type FuelComponentType } from './fuelParts'
 import { childId } from './ids'
 import type { Point3 } from './primitives'
 
 export const TYPICAL_FIGURES_NOTE = 'Typical figures; take the part’s own.'
 
 /** An inch size in mm, to the 0.01 mm the drawing keeps (5/8 in → 15.88 mm). */
-export const inchMm = (inches: number): number => Math.round(inches * MM_PER_INCH * 100) / 100
+// × 2540 in one step: 0.375 × 2540 is exactly 952.5 and rounds up to 9.53 mm, where × 25.4 × 100 lands a hair under it
+export const inchMm = (inches: number): number => Math.round(inches * MM_PER_INCH * 100 + 1e-9) / 100
 
+/** Palette groups in the order they are shown; the fittings serve both kinds of circuit. */
 export const partGroups = [
   { id: 'engine', name: 'Engine and pump' },
   { id: 'exchangers', name: 'Radiators and heaters' },
   { id: 'control', name: 'Thermostats and valves' },
   { id: 'filling', name: 'Filling, venting, expansion' },
+  { id: 'fuel-tank', name: 'Tank and pumps' },
+  { id: 'fuel-delivery', name: 'Filters, rail and regulator' },
   { id: 'fittings', name: 'Fittings' },
 ] as const
 export type PartGroupId = (typeof partGroups)[number]['id']
@@ -199,6 +206,26 @@ export const PART_KINDS: Record<ComponentType, PartKind> = {
       port('port-2', 'port 2', 'either', HEATER, pt(50, 0, 0)),
     ],
   },
+  ...FUEL_PART_KINDS,
+}
+
+/** The part types each kind of circuit's palette offers: its own parts and the fittings both use. */
+export const PART_TYPES_BY_KIND: Record<CircuitKindName, readonly ComponentType[]> = {
+  coolant: coolantComponentTypes,
+  fuel: [...fuelComponentTypes, ...FUEL_SHARED_FITTINGS],
+}
+
+/** The palette of a kind of circuit: its groups in order, each with its part types; empty groups left out. */
+export function paletteGroupsFor(kind: CircuitKindName): Array<{ id: PartGroupId; name: string; types: ComponentType[] }> {
+  const types = PART_TYPES_BY_KIND[kind]
+  return partGroups
+    .map((g) => ({ id: g.id, name: g.name, types: types.filter((t) => PART_KINDS[t].group === g.id) }))
+    .filter((g) => g.types.length > 0)
+}
+
+/** A part type's typical ports in a kind of circuit: the shared fittings take fuel sizes in a fuel circuit. */
+export function portSpecsFor(type: ComponentType, kind: CircuitKindName = 'coolant'): PortSpec[] {
+  return (kind === 'fuel' ? FUEL_FITTING_PORTS[type] : undefined) ?? PART_KINDS[type].ports
 }
 
 /** Type-specific params of a new part: a thermostat rated 88 °C fully open at 100 °C (a common OE rating), a 100 kPa cap. */
@@ -215,15 +242,20 @@ function defaultParams(type: ComponentType, portIds: Map<string, string>): Compo
     case 'heater-valve':
       return { open: true }
     default:
-      return {}
+      return (fuelComponentTypes as readonly string[]).includes(type) ? fuelDefaultParams(type as FuelComponentType) as Component['params'] : {}
   }
 }
 
-/** A new part of a type at a position, with fresh ids for it and its ports (`existing` is updated). */
-export function defaultComponent(type: ComponentType, id: string, position: Point3, existing: Set<string>): Component {
+/**
+ * A new part of a type at a position, with fresh ids for it and its ports (`existing` is updated).
+ * `circuitKind` picks the shared fittings' sizes (fuel sizes in a fuel circuit).
+ */
+export function defaultComponent(
+  type: ComponentType, id: string, position: Point3, existing: Set<string>, circuitKind: CircuitKindName = 'coolant',
+): Component {
   const kind = PART_KINDS[type]
   const portIds = new Map<string, string>()
-  const ports: Port[] = kind.ports.map((spec) => {
+  const ports: Port[] = portSpecsFor(type, circuitKind).map((spec) => {
     const portId = childId(id, spec.key, existing)
     portIds.set(spec.key, portId)
     return { id: portId, name: spec.name, role: spec.role, spigotOdMm: spec.spigotOdMm, offset: { ...spec.offset }, blocked: spec.blocked }

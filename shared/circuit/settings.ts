@@ -1,5 +1,8 @@
 import { z } from 'zod'
+import { fuelSettings } from './fuelSettings'
 import { bounded, labelText } from './primitives'
+
+export * from './fuelSettings'
 
 export const coolantFluids = ['water', 'ethylene-glycol', 'propylene-glycol'] as const
 export const coolantMix = z.strictObject({
@@ -22,7 +25,7 @@ export const pumpSetting = z.discriminatedUnion('mode', [
 ])
 export type PumpSetting = z.infer<typeof pumpSetting>
 
-/** Everything that only a coolant circuit has. A `fuel` block sits beside it when fuel parts arrive. */
+/** Everything that only a coolant circuit has. A fuel circuit has a `fuel` block instead (fuelSettings). */
 export const coolantSettings = z.strictObject({
   mix: coolantMix,
   /** pressure-cap rating, gauge */
@@ -55,6 +58,18 @@ export const thresholdSettings = z.strictObject({
   airTrapToleranceMm: bounded(0, 500, 'mm').optional(),
   fitLooseMm: bounded(0, 5, 'mm').optional(),
   fitStretchPercent: bounded(0, 30, '%').optional(),
+  /** fuel: pump flow needed above the engine's demand */
+  fuelPumpMarginPercent: bounded(0, 200, '%').optional(),
+  /** fuel: highest velocity in the line from the tank to an inline pump's inlet */
+  fuelSuctionVelocityMS: bounded(0.1, 20, 'm/s').optional(),
+  /** fuel: highest velocity in the pressure line from the pump to the rail and regulator */
+  fuelSupplyVelocityMS: bounded(0.1, 20, 'm/s').optional(),
+  /** fuel: highest velocity in the return line from the regulator to the tank */
+  fuelReturnVelocityMS: bounded(0.1, 20, 'm/s').optional(),
+  /** fuel: a filter this fine or finer after the pump protects the injectors */
+  fineFilterMicron: bounded(1, 1000, 'µm').optional(),
+  /** fuel: a filter finer than this before a pump's inlet restricts it (only a coarse strainer belongs there) */
+  strainerMinMicron: bounded(1, 1000, 'µm').optional(),
 })
 export type ThresholdSettings = z.infer<typeof thresholdSettings>
 
@@ -64,5 +79,6 @@ export const circuitSettings = z.strictObject({
   datum: labelText('Datum description', 200),
   thresholds: thresholdSettings.optional(),
   coolant: coolantSettings.optional(),
+  fuel: fuelSettings.optional(),
 })
 export type CircuitSettings = z.infer<typeof circuitSettings>

@@ -5,6 +5,7 @@
 // part's typical envelope (PART_KINDS), so a drawing is to scale.
 import type { Component, ComponentType } from '../circuit/component'
 import { PART_KINDS } from '../circuit/partDefaults'
+import { FUEL_SYMBOL_BUILDERS } from './fuelSymbols'
 import type { ViewName } from './projection'
 
 export type Fill = 'body' | 'ink' | 'none' | 'accent'
@@ -107,6 +108,7 @@ const builders: Record<ComponentType, SymbolBuilder> = {
   'blanking-plug': (w, h) => [rect(-w / 2, -h / 2, w, h, 'ink', Math.min(w, h) * 0.3)],
   drain: (w, h) => [rect(-w / 2, -h * 0.12, w, h * 0.24), path([-w * 0.18, h * 0.12, w * 0.18, h * 0.12, 0, h * 0.48], true, 'ink')],
   generic: (w, h) => [rect(-w / 2, -h / 2, w, h, 'body', Math.min(w, h) * 0.12), circle(0, 0, Math.min(w, h) * 0.08, 'ink')],
+  ...FUEL_SYMBOL_BUILDERS,
 }
 
 /** The primitives of a part's symbol in an outline of w × h mm, centred on (0, 0), before turning. */

@@ -57,6 +57,8 @@ export function drawingTheme(c: ThemeColours): DrawingTheme {
       'j30-r7': fuel([7, 5], 'fuel hose R7'),
       'j30-r9': fuel([], 'fuel hose R9'),
       'j30-r14': fuel([2, 4], 'fuel hose R14'),
+      'j30-r10': fuel([4, 3], 'in-tank hose R10'),
+      'ptfe-lined': fuel([10, 2, 2, 2], 'PTFE-lined hose'),
       'hard-line': { colour: c.ink.soft, centreDash: [14, 3], words: 'hard line' },
     },
   }

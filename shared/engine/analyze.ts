@@ -6,6 +6,7 @@ import { fluidFindings } from './checks/fluid'
 import { airTraps, fillNotHighest } from './checks/heights'
 import { danglingHoses, openPorts, roleConflicts, sizeMismatches } from './checks/structure'
 import { buildContext, type AnalysisContext, type Check } from './context'
+import { analyzeFuel, withoutSupersededOpenPorts } from './fuel/analyzeFuel'
 import { solveState } from './flow/solve'
 import { capLines, clampCounts, clampLines, fittingCounts, thermostatLines } from './quantities/parts'
 import { hoseLines, hoseTotals } from './quantities/hoses'
@@ -56,12 +57,18 @@ export function computeQuantities(ctx: AnalysisContext): Quantities {
  */
 export function analyzeCircuit(doc: CircuitDocument): Report {
   const ctx = buildContext(doc)
-  const findings: Finding[] = LAYOUT_CHECKS.flatMap((check) => check(ctx))
+  let findings: Finding[] = LAYOUT_CHECKS.flatMap((check) => check(ctx))
   const quantities = computeQuantities(ctx)
   findings.push(...fluidFindings(ctx, quantities.coolant))
   const open = solveState(ctx, 'open')
   const closed = solveState(ctx, 'closed')
   findings.push(...flowFindings(ctx, open, closed))
+  if (doc.circuit.kind === 'fuel') {
+    // fuel checks never run on a coolant circuit, and a coolant report has no fuel block at all
+    const fuel = analyzeFuel(ctx)
+    findings = withoutSupersededOpenPorts([...findings, ...fuel.findings])
+    quantities.fuel = fuel.quantities
+  }
   const sorted = sortFindings(ctx, findings)
   const counts = { error: 0, warning: 0, note: 0 }
   for (const f of sorted) counts[f.severity]++

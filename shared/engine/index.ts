@@ -7,3 +7,7 @@ export { WORM_DRIVE_CLAMP_SIZES, wormDriveClampFor, hoseFit, nominalBoreFor, NOM
 export { boreVolumeL } from './quantities/volume'
 export { cutLengthMm, SOLD_BY } from './quantities/hoses'
 export { formatReportText } from './text'
+export type { FuelQuantities, FuelLineFlow, FuelOperatingPoint, InjectorSet, FuelPartLine, FuelPartRole, FuelPlace } from './fuel/types'
+export type { FuelSide } from './fuel/layout'
+export { FUEL_HOSE_RATINGS, suitableFuelHose, type FuelHoseRating } from './fuel/hoseRatings'
+export { pumpFlowAt } from './fuel/flow'

@@ -1,4 +1,4 @@
-import type { Point3 } from '../circuit'
+import type { HoseMaterial, Point3 } from '../circuit'
 import type { FlowReport } from './flow/types'
 import type { Quantities } from './quantities/types'
 
@@ -15,6 +15,11 @@ export type FixAction =
   | { type: 'raise-component'; componentId: string; z: number }
   | { type: 'set-cap-rating'; capRatingKpa: number }
   | { type: 'set-coolant-percent'; percentByVolume: number }
+  /** draw a hose between two open ports (a fuel return line from the regulator to the tank) */
+  | { type: 'join-ports'; fromPortId: string; toPortId: string; label?: string }
+  /** reference a fuel pressure regulator to the intake manifold, so fuel pressure follows boost 1:1 */
+  | { type: 'set-regulator-reference'; componentId: string; reference: 'manifold' }
+  | { type: 'set-hose-material'; hoseId: string; material: HoseMaterial }
 
 export interface Finding {
   /** stable kebab-case code; the list with rules is in docs/engine.md */

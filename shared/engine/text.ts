@@ -1,6 +1,7 @@
 // The report as plain text for people at the bench (the CLI's --format text).
 import { fmt, size } from './model'
 import type { BranchKind, FlowReport } from './flow/types'
+import { fuelTextLines } from './fuel/text'
 import type { Report } from './report'
 
 const SEVERITY_WORD = { error: 'ERROR', warning: 'WARNING', note: 'NOTE' } as const
@@ -51,6 +52,11 @@ export function formatReportText(report: Report, title = ''): string {
   for (const f of q.fittings) out.push(`  ${f.count} × ${f.item} ${f.size}`)
   for (const t of q.thermostats) out.push(`  thermostat ${t.label}: opens ${fmt(t.openingTempC, 0)} °C, fully open ${fmt(t.fullOpenTempC, 0)} °C${t.hasBypass ? ', bypass hole' : ''}`)
   for (const c of q.caps) out.push(`  pressure cap on ${c.label}: ${fmt(c.ratingKpa, 0)} kPa`)
+  if (q.fuel) {
+    // a fuel circuit: the fuel figures stand where the coolant and its flow solve would
+    out.push('', `Fuel in the lines and parts: ${fmt(q.volume.totalL, 2)} L`, '', ...fuelTextLines(q.fuel))
+    return out.join('\n') + '\n'
+  }
   out.push('', `Coolant volume: ${fmt(q.volume.totalL, 2)} L`)
   if (q.coolant) {
     const c = q.coolant

@@ -74,6 +74,14 @@ export const partTypeLabels: Record<ComponentType, string> = {
   drain: 'Drain',
   'deaeration-pot': 'De-aeration pot',
   generic: 'Other part',
+  'fuel-tank': 'Fuel tank',
+  'in-tank-pump': 'In-tank fuel pump',
+  'inline-pump': 'Inline fuel pump',
+  'fuel-filter': 'Fuel filter',
+  'fuel-regulator': 'Fuel pressure regulator',
+  'fuel-rail': 'Fuel rail',
+  injector: 'Injectors',
+  'bulkhead-fitting': 'Bulkhead fitting',
 }
 
 /** A stored template as the API returns it. */

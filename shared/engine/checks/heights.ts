@@ -104,6 +104,8 @@ function pointAt(ctx: AnalysisContext, g: HeightGraph, v: number): Point3 {
 }
 
 export const airTraps: Check = (ctx) => {
+  // a fuel pump pushes air on to the return (or out through the injectors): no high point holds it
+  if (ctx.doc.circuit.kind !== 'coolant') return []
   const g = heightGraphOf(ctx)
   const tol = ctx.thresholds.airTrapToleranceMm
   const out: Finding[] = []

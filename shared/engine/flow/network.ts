@@ -46,7 +46,7 @@ export function operatingTemperatureC(ctx: AnalysisContext): number {
 
 /** Why a flow solve would mean nothing, or null when it can run. */
 export function flowSkipReason(ctx: AnalysisContext): string | null {
-  if (ctx.doc.circuit.kind !== 'coolant') return 'Flow is solved for coolant circuits only so far.'
+  if (ctx.doc.circuit.kind !== 'coolant') return 'A fuel circuit\'s flows are estimated line by line (series model): see the fuel figures.'
   if (!circulates(ctx)) return 'Not solved: coolant cannot circulate through the pump, engine and radiator (see no-circulation).'
   return null
 }

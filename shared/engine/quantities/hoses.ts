@@ -5,7 +5,7 @@ import { endName } from '../model'
 import type { HoseLine, HoseTotal } from './types'
 
 /**
- * How each kind of hose is sold (common practice): heater, silicone and fuel hose off the roll by the
+ * How each kind of hose is sold (common practice): heater, silicone and fuel hose (PTFE-lined too) off the roll by the
  * half metre (about the foot the trade also uses); straight radiator hose and hard line by the whole metre.
  */
 export const SOLD_BY: Record<HoseMaterial, { stepMm: number; rule: string }> = {
@@ -15,6 +15,8 @@ export const SOLD_BY: Record<HoseMaterial, { stepMm: number; rule: string }> = {
   'j30-r7': { stepMm: 500, rule: 'fuel hose is sold off the roll: total rounded up to the next 0.5 m' },
   'j30-r9': { stepMm: 500, rule: 'fuel hose is sold off the roll: total rounded up to the next 0.5 m' },
   'j30-r14': { stepMm: 500, rule: 'fuel hose is sold off the roll: total rounded up to the next 0.5 m' },
+  'j30-r10': { stepMm: 500, rule: 'fuel hose is sold off the roll: total rounded up to the next 0.5 m' },
+  'ptfe-lined': { stepMm: 500, rule: 'fuel hose is sold off the roll: total rounded up to the next 0.5 m' },
   'j20-r4-radiator': { stepMm: 1000, rule: 'straight radiator hose is sold by the metre: total rounded up to the next whole metre (a moulded bend is one piece per hose)' },
   'hard-line': { stepMm: 1000, rule: 'tube is sold in lengths: total rounded up to the next whole metre' },
 }

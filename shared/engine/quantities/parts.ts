@@ -187,6 +187,19 @@ function sameNumbers(a: number[], b: number[]): boolean {
 
 const FITTING_ITEMS: Partial<Record<string, string>> = {
   tee: 'tee', 'bleed-valve': 'bleed valve', 'blanking-plug': 'blanking plug', drain: 'drain tap', 'heater-valve': 'heater valve',
+  'bulkhead-fitting': 'bulkhead fitting',
+}
+
+/**
+ * What closes a blocked port: a bleed screw, filler cap, drain plug or blanking cap. A fuel tank's vent
+ * takes a vent valve, a regulator's spare port a port plug; an injector's seat is its O-ring in the
+ * rail, so nothing is bought for it.
+ */
+function blockedPortItem(type: string, role: string): string | null {
+  if (type === 'injector') return null
+  if (type === 'fuel-tank' && role === 'vent') return 'vent valve'
+  if (type === 'fuel-regulator') return 'port plug'
+  return role === 'vent' ? 'bleed screw' : role === 'fill' ? 'filler cap' : role === 'drain' ? 'drain plug' : 'blanking cap'
 }
 
 export function fittingCounts(ctx: AnalysisContext): CountLine[] {
@@ -204,8 +217,8 @@ export function fittingCounts(ctx: AnalysisContext): CountLine[] {
     }
     for (const p of c.ports) {
       if (!p.port.blocked) continue
-      const role = p.port.role
-      const item = role === 'vent' ? 'bleed screw' : role === 'fill' ? 'filler cap' : role === 'drain' ? 'drain plug' : 'blanking cap'
+      const item = blockedPortItem(type, p.port.role)
+      if (item === null) continue
       if (item === 'filler cap' && (type === 'pressure-cap' || type === 'expansion-tank')) continue // the pressure cap itself
       count(groups, item, `for ${size(p.port.spigotOdMm)} mm spigot (${portName(p)})`, p.port.id)
     }

@@ -1,4 +1,5 @@
 import type { ClampKind, CoolantMixSetting, HoseMaterial } from '../../circuit'
+import type { FuelQuantities } from '../fuel/types'
 
 export interface HoseLine {
   hoseId: string
@@ -78,4 +79,6 @@ export interface Quantities {
   caps: Array<{ componentId: string; label: string; ratingKpa: number }>
   volume: { totalL: number; parts: VolumeShare[] }
   coolant: CoolantQuantities | null
+  /** fuel circuits only: demand, pump, injectors and line flows; absent on a coolant circuit */
+  fuel?: FuelQuantities
 }

@@ -19,7 +19,10 @@ describe('docs/exchange-format.md', () => {
 describe('docs/engine.md', () => {
   it('documents every finding code the engine can emit', () => {
     const doc = read('docs/engine.md')
-    const sources = ['checks/structure.ts', 'checks/deadLegs.ts', 'checks/circulation.ts', 'checks/heights.ts', 'checks/flowChecks.ts', 'checks/fluid.ts']
+    const sources = [
+      'checks/structure.ts', 'checks/deadLegs.ts', 'checks/circulation.ts', 'checks/heights.ts', 'checks/flowChecks.ts', 'checks/fluid.ts',
+      'fuel/layoutChecks.ts', 'fuel/sizingChecks.ts',
+    ]
       .map((f) => read(`shared/engine/${f}`)).join('\n')
     const codes = new Set([...sources.matchAll(/makeFinding\(\s*ctx,\s*'([a-z-]+)'/g)].map((m) => m[1]!))
     expect(codes.size).toBeGreaterThan(15)
