@@ -17,10 +17,13 @@ const SECTION_OF_ITEM: Record<string, ShopSection> = {
   'drain tap': 'drains',
   'drain plug': 'drains',
   'heater valve': 'valves',
+  'bulkhead fitting': 'tank-fittings',
+  'vent valve': 'tank-fittings',
+  'port plug': 'plugs',
 }
 
 /** Items the engine lists for a blocked port: one per port, sized by its spigot. */
-const PORT_ITEMS = new Set(['bleed screw', 'blanking cap', 'filler cap', 'drain plug'])
+const PORT_ITEMS = new Set(['bleed screw', 'blanking cap', 'filler cap', 'drain plug', 'vent valve', 'port plug'])
 
 export interface DocumentIndex {
   components: Map<string, Component>

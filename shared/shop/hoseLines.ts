@@ -3,6 +3,7 @@
 import type { HoseMaterial } from '../circuit'
 import { WORM_DRIVE_CLAMP_SIZES, type ClampLine, type CountLine, type HoseLine, type Report } from '../engine'
 import { boreSizes, capitalise, pieces, cutLengthInches, inchText, metresText, mmText, num, rangeSizes, slug } from './format'
+import { fuelHoseClass } from './fuelLines'
 import type { DualText, ShoppingLine } from './types'
 
 export const MATERIAL_NAMES: Record<HoseMaterial, string> = {
@@ -13,6 +14,8 @@ export const MATERIAL_NAMES: Record<HoseMaterial, string> = {
   'j30-r7': 'fuel hose (SAE J30 R7)',
   'j30-r9': 'fuel-injection hose (SAE J30 R9)',
   'j30-r14': 'low-permeation fuel hose (SAE J30 R14)',
+  'j30-r10': 'submersible in-tank fuel hose (SAE J30 R10)',
+  'ptfe-lined': 'PTFE-lined braided fuel hose',
   'hard-line': 'hard line (tube)',
 }
 
@@ -56,14 +59,17 @@ export function hoseSection(report: Report, allowance: { percent: number; perEnd
     const id = hoseGroupId(t.material, t.insideDiameterMm)
     const cuts = t.tags.map((tag) => byTag.get(tag)).filter((h): h is HoseLine => h !== undefined)
     const qty: DualText = t.buy.unit === 'm' ? metresText(t.buy.quantity) : pieces(t.buy.quantity)
+    // a fuel hose is bought by its pressure class as well as its bore
+    const fuelClass = fuelHoseClass(report, t.material)
+    const bore = boreSizes(t.insideDiameterMm)
     out.push(line({
       id,
       section: 'hoses',
       parentId: null,
-      description: `${capitalise(MATERIAL_NAMES[t.material])}, ${mmText(t.insideDiameterMm)} bore`,
+      description: `${capitalise(MATERIAL_NAMES[t.material])}, ${mmText(t.insideDiameterMm)} bore${fuelClass ? `, ${fuelClass.words}` : ''}`,
       quantity: t.buy.quantity,
       unit: t.buy.unit,
-      sizes: boreSizes(t.insideDiameterMm),
+      sizes: fuelClass ? { metric: `${bore.metric}, ${fuelClass.sizes.metric}`, imperial: `${bore.imperial}, ${fuelClass.sizes.imperial}` } : bore,
       quantityText: qty,
       notes: `${t.rule}. Cut ${t.tags.join(', ')}: ${num(t.cutTotalMm, 0)} mm in all.`,
       elementIds: cuts.map((h) => h.hoseId),
@@ -92,6 +98,9 @@ function clampSizes(c: CountLine): DualText {
   return od !== undefined ? { metric: c.size, imperial: c.size.replace(/\d+(?:\.\d+)? mm/, inchText(od)) } : { metric: c.size, imperial: c.size }
 }
 
+/** Clamp items whose code reads badly on a list. */
+const CLAMP_ITEM_WORDS: Record<string, string> = { 'efi-band clamp': 'fuel-injection clamp (smooth band)' }
+
 export function clampSection(report: Report): ShoppingLine[] {
   const tagOf = new Map(report.quantities.hoses.map((h) => [h.hoseId, h.tag]))
   return report.quantities.clampCounts.map((c) => {
@@ -103,7 +112,7 @@ export function clampSection(report: Report): ShoppingLine[] {
       id: `clamp/${slug(c.item)}/${slug(range ? `sae-${range.size}` : c.size)}`,
       section: 'clamps',
       parentId: null,
-      description: `${capitalise(c.item)}${range ? ` SAE ${range.size}` : ` ${c.size}`}`,
+      description: `${capitalise(CLAMP_ITEM_WORDS[c.item] ?? c.item)}${range ? ` SAE ${range.size}` : ` ${c.size}`}`,
       quantity: c.count,
       unit: 'piece',
       sizes: clampSizes(c),

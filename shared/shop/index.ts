@@ -7,6 +7,7 @@ export {
   DEFAULT_TOP_UP_RESERVE_PERCENT, type ContainerChoice,
 } from './containers'
 export { fillAndBleedProcedure } from './fillAndBleed'
+export { leakAndPrimeProcedure } from './leakAndPrime'
 export { procedureFor } from './procedure'
 export { volumeByPart, flowSplit, type ChartDatum } from './charts'
 export { SHOP_SECTIONS, SECTION_TITLES } from './types'
@@ -15,5 +16,6 @@ export type {
 } from './types'
 export type {
   Procedure, ProcedureResult, ProcedureKind, ProcedureStep, ProcedurePhase, StepKind, CoolantProcedure,
-  CoolantProcedureFigures, UnavailableProcedure,
+  CoolantProcedureFigures, UnavailableProcedure, FuelProcedure, FuelProcedureFigures,
 } from './procedureTypes'
+export { PROCEDURE_PHASE_TITLES } from './procedureTypes'

@@ -2,20 +2,15 @@
 import type { CircuitDocument, CircuitKindName } from '../circuit'
 import type { Report } from '../engine'
 import { fillAndBleedProcedure } from './fillAndBleed'
+import { leakAndPrimeProcedure } from './leakAndPrime'
 import type { ProcedureResult } from './procedureTypes'
 
 type Generator = (document: CircuitDocument, report: Report) => ProcedureResult
 
-/** One generator per circuit kind: a fuel leak-and-prime procedure replaces the placeholder here. */
+/** One generator per circuit kind: fill and bleed for coolant, leak test and prime for fuel. */
 const GENERATORS: Record<CircuitKindName, Generator> = {
   coolant: fillAndBleedProcedure,
-  fuel: (document) => ({
-    kind: 'fuel-leak-and-prime',
-    available: false,
-    title: 'Leak test and prime',
-    circuitTitle: document.circuit.title,
-    reason: 'A leak-and-prime procedure is not available for fuel circuits yet.',
-  }),
+  fuel: leakAndPrimeProcedure,
 }
 
 export function procedureFor(document: CircuitDocument, report: Report): ProcedureResult {

@@ -1,12 +1,22 @@
-// Shapes of the procedures a technician follows. One generator per circuit kind; fuel circuits get a
-// leak-and-prime procedure later, with its own phases and figures beside the coolant ones.
+// Shapes of the procedures a technician follows. One generator per circuit kind: a coolant circuit's
+// fill and bleed, a fuel circuit's leak test and prime, each with its own figures.
 
 export type ProcedureKind = 'coolant-fill-and-bleed' | 'fuel-leak-and-prime'
 
 export type StepKind = 'caution' | 'step' | 'check' | 'record'
 
-/** Coolant phases; the fuel procedure adds its own ('leak-test', 'prime') when it arrives. */
-export type ProcedurePhase = 'cautions' | 'prepare' | 'fill' | 'bleed' | 'warm-up' | 'top-up' | 'pressure-test'
+/**
+ * Phases in the order a procedure can run through them. Coolant uses cautions, prepare, fill, bleed,
+ * warm-up, top-up and pressure-test; fuel uses cautions, prepare, fill (the tank), prime, leak-test
+ * and warm-up (the first start).
+ */
+export type ProcedurePhase = 'cautions' | 'prepare' | 'fill' | 'bleed' | 'prime' | 'leak-test' | 'warm-up' | 'top-up' | 'pressure-test'
+
+/** Each phase's heading, for pages and printouts. */
+export const PROCEDURE_PHASE_TITLES: Record<ProcedurePhase, string> = {
+  cautions: 'Cautions', prepare: 'Prepare', fill: 'Fill', bleed: 'Bleed', prime: 'Prime', 'leak-test': 'Leak test',
+  'warm-up': 'Warm up', 'top-up': 'Top up', 'pressure-test': 'Pressure test',
+}
 
 export interface ProcedureStep {
   /** stable: made from the phase and the ids of the parts concerned */
@@ -46,8 +56,34 @@ export interface CoolantProcedure {
   figures: CoolantProcedureFigures
 }
 
-/** Every procedure there is; a fuel procedure joins this union. */
-export type Procedure = CoolantProcedure
+export interface FuelProcedureFigures {
+  /**
+   * what the system is leak-tested at: the regulator's base pressure, which the rail holds with the
+   * pump running and the engine off (the manifold is at atmosphere), gauge kPa; null without a regulator
+   */
+  testPressureKpa: number | null
+  /** rail pressure at full boost when the regulator follows boost 1:1; null without boost or reference */
+  fullBoostPressureKpa: number | null
+  /** return-style: fuel runs back to the tank all the time */
+  returnStyle: boolean
+  /** fuel the lines and parts hold once primed (the report's volume), L */
+  linesVolumeL: number
+  /** hoses whose two ends are checked, in the report's order */
+  jointHoseIds: string[]
+}
+
+export interface FuelProcedure {
+  kind: 'fuel-leak-and-prime'
+  available: true
+  title: string
+  circuitTitle: string
+  engineVersion: string
+  steps: ProcedureStep[]
+  figures: FuelProcedureFigures
+}
+
+/** Every procedure there is: one per circuit kind. */
+export type Procedure = CoolantProcedure | FuelProcedure
 
 export interface UnavailableProcedure {
   kind: ProcedureKind

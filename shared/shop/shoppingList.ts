@@ -4,6 +4,7 @@ import type { Report } from '../engine'
 import { CONTAINER_RULE, DEFAULT_CONCENTRATE_CONTAINERS, DEFAULT_TOP_UP_RESERVE_PERCENT, DEFAULT_WATER_CONTAINERS } from './containers'
 import { coolantLines } from './coolantLines'
 import { capLines, fittingLines, indexDocument, reducerLinesFromFindings, thermostatLines } from './fittingLines'
+import { fuelPartLines } from './fuelLines'
 import { clampSection, hoseSection } from './hoseLines'
 import { SECTION_TITLES, SHOP_SECTIONS, type CustomLineInput, type SectionTotal, type ShoppingLine, type ShoppingList, type ShoppingListOptions } from './types'
 
@@ -62,7 +63,11 @@ export function sectionTotals(lines: readonly ShoppingLine[]): SectionTotal[] {
 }
 
 /** Findings that change what is bought: the list shows the drawing as it is, these say what is still to settle. */
-const ATTENTION_CODES = new Set(['open-port', 'dangling-hose', 'size-mismatch'])
+const ATTENTION_CODES = new Set([
+  'open-port', 'dangling-hose', 'size-mismatch',
+  // fuel: a missing return, the wrong hose class, a pump, injectors or a filter that must be bought differently
+  'no-return-line', 'hose-not-fuel-rated', 'pump-undersized', 'injector-undersized', 'filter-placement',
+])
 
 function attentionOf(report: Report): string[] {
   const out = report.findings
@@ -91,6 +96,7 @@ export function shoppingList(document: CircuitDocument, report: Report, options:
     ...fittingLines(report, idx),
     ...thermostatLines(report),
     ...capLines(report),
+    ...fuelPartLines(document, report),
     ...(q.coolant
       ? coolantLines(q.coolant, q.volume.totalL, reserve,
         options.concentrateContainers ?? DEFAULT_CONCENTRATE_CONTAINERS, options.waterContainers ?? DEFAULT_WATER_CONTAINERS)

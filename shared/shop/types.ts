@@ -2,7 +2,8 @@
 
 /** Sections in the order they are printed. */
 export const SHOP_SECTIONS = [
-  'hoses', 'clamps', 'reducers', 'plugs', 'tees', 'bleed', 'drains', 'valves', 'thermostat', 'cap', 'coolant', 'sundries', 'other',
+  'hoses', 'clamps', 'reducers', 'plugs', 'tees', 'bleed', 'drains', 'valves', 'thermostat', 'cap', 'coolant',
+  'fuel-pump', 'filters', 'regulator', 'injectors', 'tank-fittings', 'sundries', 'other',
 ] as const
 export type ShopSection = (typeof SHOP_SECTIONS)[number]
 
@@ -18,6 +19,11 @@ export const SECTION_TITLES: Record<ShopSection, string> = {
   thermostat: 'Thermostat',
   cap: 'Pressure cap',
   coolant: 'Coolant concentrate and distilled water',
+  'fuel-pump': 'Fuel pump',
+  filters: 'Fuel filters',
+  regulator: 'Fuel pressure regulator',
+  injectors: 'Injectors and rail',
+  'tank-fittings': 'Tank fittings',
   sundries: 'Sundries',
   other: 'Other parts',
 }

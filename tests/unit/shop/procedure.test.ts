@@ -2,7 +2,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { analyzeCircuit } from '#shared/engine'
-import { correctedDemoDocument, demoDocument, randomCircuit } from '#shared/demo'
+import { correctedDemoDocument, correctedFuelDemoDocument, demoDocument, randomCircuit } from '#shared/demo'
 import type { CircuitDocument } from '#shared/circuit'
 import { fillAndBleedProcedure, procedureFor, type CoolantProcedure, type ProcedureStep } from '#shared/shop'
 
@@ -144,15 +144,17 @@ describe('pressure test (common practice, check-values §7)', () => {
 })
 
 describe('procedureFor switches on the circuit kind', () => {
-  it('coolant gives the fill-and-bleed procedure; fuel says it is not available yet', () => {
+  it('coolant gives the fill-and-bleed procedure; fuel gives the leak-and-prime procedure', () => {
     expect(procedureFor(correctedDemoDocument(), analyzeCircuit(correctedDemoDocument())).kind).toBe('coolant-fill-and-bleed')
-    const fuel = correctedDemoDocument()
-    fuel.circuit.kind = 'fuel'
-    delete fuel.circuit.settings.coolant
+    const fuel = correctedFuelDemoDocument()
     const r = procedureFor(fuel, analyzeCircuit(fuel))
-    expect(r.available).toBe(false)
+    expect(r.available).toBe(true)
     expect(r.kind).toBe('fuel-leak-and-prime')
-    if (!r.available) expect(r.reason).toMatch(/not available for fuel circuits yet/)
+    if (r.available) {
+      expect(r.steps[0]!.id).toBe('caution/fire')
+      expect(r.steps.some((s) => s.phase === 'prime')).toBe(true)
+      expect(r.steps.some((s) => s.phase === 'leak-test')).toBe(true)
+    }
     expect(() => fillAndBleedProcedure(fuel, analyzeCircuit(fuel))).toThrow(/coolant circuits/)
   })
 })
