@@ -2,13 +2,13 @@ import { count } from 'drizzle-orm'
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js'
 import * as schema from './schema'
 import { demoAccounts, demoPassword, demoProject, demoWorkshop } from './demo'
-import { demoDocument } from '../../shared/demo'
+import { demoDocument, fuelDemoDocument } from '../../shared/demo'
 import { analyzeCircuit } from '../../shared/engine'
 import { writeCircuitRows } from '../utils/circuitGraph'
 
 type Db = PostgresJsDatabase<typeof schema>
 
-/** Creates the demo workshop, its four members and the demo build — only into an empty database. */
+/** Creates the demo workshop, its four members and the demo build (coolant and fuel circuits) — only into an empty database. */
 export async function seedDemoIfEmpty(db: Db, hash: (password: string) => Promise<string>): Promise<boolean> {
   const [users] = await db.select({ n: count() }).from(schema.users)
   if ((users?.n ?? 0) > 0) return false
@@ -22,17 +22,19 @@ export async function seedDemoIfEmpty(db: Db, hash: (password: string) => Promis
       if (account.role === 'fabricator') createdBy = user!.id
     }
     const [project] = await tx.insert(schema.projects).values({ ...demoProject, workshopId: workshop!.id, createdBy }).returning()
-    // the demo drawing keeps its deliberate problems (an open third outlet, an unbled heater high point)
-    const document = demoDocument()
-    const [circuit] = await tx.insert(schema.circuits).values({
-      workshopId: workshop!.id, projectId: project!.id, kind: 'coolant', title: document.circuit.title,
-      settings: document.circuit.settings as Record<string, unknown>, notes: document.circuit.notes ?? null,
-    }).returning()
-    await writeCircuitRows(tx, circuit!, document)
-    await tx.insert(schema.circuitRevisions).values({
-      circuitId: circuit!.id, workshopId: workshop!.id, version: circuit!.version,
-      document: document as unknown as Record<string, unknown>, summary: analyzeCircuit(document).counts, savedBy: createdBy,
-    })
+    // the demo drawings keep their deliberate problems: the coolant one an open third outlet and an
+    // unbled heater high point, the fuel conversion its return line still to run
+    for (const document of [demoDocument(), fuelDemoDocument()]) {
+      const [circuit] = await tx.insert(schema.circuits).values({
+        workshopId: workshop!.id, projectId: project!.id, kind: document.circuit.kind, title: document.circuit.title,
+        settings: document.circuit.settings as Record<string, unknown>, notes: document.circuit.notes ?? null,
+      }).returning()
+      await writeCircuitRows(tx, circuit!, document)
+      await tx.insert(schema.circuitRevisions).values({
+        circuitId: circuit!.id, workshopId: workshop!.id, version: circuit!.version,
+        document: document as unknown as Record<string, unknown>, summary: analyzeCircuit(document).counts, savedBy: createdBy,
+      })
+    }
   })
   return true
 }
