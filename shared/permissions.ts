@@ -21,6 +21,9 @@ export const capabilities = {
   'comment:write': ['owner', 'fabricator', 'reviewer', 'technician'],
   'comment:moderate': ['owner'],
   'activity:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  // the shop outputs of a version: everyone reads them; those who buy, fit and fill record on them
+  'shop:read': ['owner', 'fabricator', 'reviewer', 'technician'],
+  'shop:record': ['owner', 'fabricator', 'technician'],
   'workshop:settings': ['owner'],
 } as const satisfies Record<string, readonly Role[]>
 

@@ -21,6 +21,9 @@ const expected: Record<Capability, Record<(typeof roles)[number], boolean>> = {
   'comment:write': { owner: true, fabricator: true, reviewer: true, technician: true },
   'comment:moderate': { owner: true, fabricator: false, reviewer: false, technician: false },
   'activity:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  // shop outputs: the whole team reads the records; technicians, owners and fabricators make them
+  'shop:read': { owner: true, fabricator: true, reviewer: true, technician: true },
+  'shop:record': { owner: true, fabricator: true, reviewer: false, technician: true },
   'workshop:settings': { owner: true, fabricator: false, reviewer: false, technician: false },
 }
 
