@@ -49,12 +49,15 @@ export async function queueReviewDecided(tx: Tx, review: ReviewRow, circuit: Cir
   if (!to) return
   const approved = review.state === 'approved'
   const body = reviewMailBody(`Hello ${to.name},`, approved
-    ? [`${decider.name} has approved version ${review.version} of “${circuit.title}” (project “${circuit.projectTitle}”). The technicians now see this version first; later saves stay drafts until they are reviewed again.`]
+    ? [`${decider.name} has approved version ${review.version} of “${circuit.title}” (project “${circuit.projectTitle}”). The technicians now see this version first; later saves stay drafts until they are reviewed again.`,
+      'The build sheet of this version is attached as a PDF.']
     : [`${decider.name} has asked for changes to version ${review.version} of “${circuit.title}” (project “${circuit.projectTitle}”). Make them, save, and put the new version up for review.`],
   { who: `${decider.name} wrote`, text: review.decisionNote }, { label: approved ? 'See the approved version' : 'See the review', url: `${appUrl()}/reviews/${review.id}` })
   await enqueueMail(tx, {
     workshopId: review.workshopId, kind: approved ? 'review-approved' : 'changes-requested', to: to.email,
     subject: approved ? `Approved: ${circuit.title}, version ${review.version}` : `Changes wanted: ${circuit.title}, version ${review.version}`,
     ...body,
+    // the build sheet of the approved version, made at send time (server/plugins/buildSheetAttachment.ts)
+    attachments: approved ? [{ kind: 'build-sheet', ref: `${circuit.id}:${review.version}`, filename: `build-sheet-v${review.version}.pdf` }] : [],
   })
 }
