@@ -29,7 +29,7 @@ function line(fields: Omit<ShoppingLine, 'source' | 'price' | 'supplier'>): Shop
 function clampText(c: ClampLine | undefined): string {
   if (!c) return 'no clamp'
   if (c.kind === 'none') return 'no clamp'
-  return `${c.kind} clamp ${c.size ?? `(no listed size for ${num(c.assembledOdMm)} mm OD)`}`
+  return `${CLAMP_ITEM_WORDS[`${c.kind} clamp`] ?? `${c.kind} clamp`} ${c.size ?? `(no listed size for ${num(c.assembledOdMm)} mm OD)`}`
 }
 
 function cutLine(h: HoseLine, parentId: string, clamps: ClampLine[], allowance: string): ShoppingLine {
