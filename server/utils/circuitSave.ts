@@ -5,6 +5,7 @@ import { analyzeCircuit } from '#shared/engine'
 import type { Database } from './db'
 import type { CircuitRow } from '../database/schema'
 import { writeCircuitRows } from './circuitGraph'
+import { rememberReport } from './reportCache'
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0]
 
@@ -48,7 +49,7 @@ export async function storeVersion(tx: Tx, circuit: CircuitRow, version: number,
  */
 export async function saveCircuit(workshopId: string, userId: string, circuitId: string, baseVersion: number, doc: CircuitDocument) {
   const db = useDb()
-  return await db.transaction(async (tx) => {
+  const saved = await db.transaction(async (tx) => {
     // the version bump is the lock: of many concurrent saves from one base, exactly one matches
     const [bumped] = await tx.update(schema.circuits)
       .set({
@@ -70,8 +71,11 @@ export async function saveCircuit(workshopId: string, userId: string, circuitId:
     }
     const report = await storeVersion(tx, bumped, bumped.version, doc, userId)
     await tx.update(schema.projects).set({ updatedAt: new Date() }).where(eq(schema.projects.id, bumped.projectId))
-    return { version: bumped.version, report }
+    return { version: bumped.version, report, updatedAt: bumped.updatedAt }
   })
+  // committed: the next load of this version need not analyse it again
+  rememberReport(circuitId, saved.version, saved.updatedAt, saved.report)
+  return { version: saved.version, report: saved.report }
 }
 
 async function loadCurrentDocument(tx: Tx, circuit: CircuitRow) {

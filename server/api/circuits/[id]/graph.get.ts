@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   return {
     circuit: { id: circuit.id, projectId: circuit.projectId, kind: circuit.kind, title: circuit.title, version: circuit.version, updatedAt: circuit.updatedAt },
     document,
-    report: analyzeCircuit(document),
+    report: versionReport(circuit.id, circuit.version, circuit.updatedAt, () => analyzeCircuit(document)),
     reviewStatus: await reviewStatusOf(db, workshopId, circuit),
   }
 })
