@@ -190,7 +190,7 @@ async function send(route: ApiRoute, c: Case): Promise<{ status: number; text: s
   } else if (c.body?.kind === 'form') {
     const form = new FormData()
     for (const [k, v] of c.body.fields) form.append(k, v)
-    if (c.body.file) form.append('file', new Blob([c.body.file.bytes], { type: c.body.file.type }), c.body.file.name)
+    if (c.body.file) form.append('file', new Blob([new Uint8Array(c.body.file.bytes)], { type: c.body.file.type }), c.body.file.name)
     body = form
   }
   const res = await fetch(baseUrl + path, { method: route.method, headers, body, redirect: 'manual' })
@@ -217,7 +217,7 @@ describe(`fuzzing every API route (${routes.length} routes × ${CASES_PER_ROUTE}
       for (let at = 0; at < cases.length; at += WINDOW) {
         const window = cases.slice(at, at + WINDOW)
         const before = await fingerprint()
-        const answers = []
+        const answers: Array<{ status: number; text: string }> = []
         for (const c of window) {
           const answer = await send(route, c)
           answers.push(answer)
