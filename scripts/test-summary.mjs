@@ -16,7 +16,7 @@ for (const suite of ['unit', 'api', 'e2e']) {
   brokenFiles += report.testResults.filter(r => r.status === 'failed' && r.assertionResults.every(a => a.status !== 'failed')).length
   skipped += report.numPendingTests + (report.numTodoTests ?? 0)
 }
-const expected = ['typecheck', 'lint', 'unit', 'build', 'api', 'e2e']
+const expected = ['typecheck', 'lint', 'unit', 'build', 'api', 'e2e', 'reliability']
 const missing = expected.filter(n => !stages.some(s => s.name === n))
 const failedStages = stages.filter(s => !s.ok).map(s => s.name).concat(missing.map(m => `${m} (not run)`))
 console.log('')
